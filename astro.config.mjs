@@ -1,0 +1,30 @@
+// @ts-check
+import { defineConfig } from 'astro/config';
+import node from '@astrojs/node';
+import react from '@astrojs/react';
+import tailwindcss from '@tailwindcss/vite';
+import auth from 'auth-astro';
+
+// Hosts the server answers to. Astro's origin check (CSRF) compares a form post's Origin with the
+// request URL; without the host listed here the request URL loses its port behind the node
+// adapter and both the origin check and Auth.js's callback URLs go wrong.
+const publicHosts = (process.env.PUBLIC_HOSTS ?? '')
+  .split(',')
+  .map((host) => host.trim())
+  .filter(Boolean)
+  .map((hostname) => ({ hostname }));
+
+export default defineConfig({
+  output: 'server',
+  adapter: node({ mode: 'standalone' }),
+  integrations: [react(), auth()],
+  security: {
+    checkOrigin: true,
+    allowedDomains: [{ hostname: 'localhost' }, { hostname: '127.0.0.1' }, ...publicHosts],
+  },
+  server: { host: '127.0.0.1', port: 4321 },
+  vite: {
+    plugins: [tailwindcss()],
+    ssr: { external: ['better-sqlite3', '@node-rs/argon2', 'knex'] },
+  },
+});

@@ -1,0 +1,34 @@
+import Credentials from '@auth/core/providers/credentials';
+import { defineConfig } from 'auth-astro';
+import { signInSchema } from './src/lib/schemas/account';
+import { getConfig } from './src/lib/server/config';
+import { verifyAgainstDecoy, verifyPassword } from './src/lib/server/passwords';
+import { findCredentials } from './src/lib/server/repos/users';
+
+// Sign-in by e-mail and password; the session is a signed, encrypted JWT in an HttpOnly,
+// SameSite=Lax cookie (Secure and __Secure- prefixed whenever the app is served over https).
+export default defineConfig({
+  secret: getConfig().authSecret,
+  trustHost: true,
+  session: { strategy: 'jwt', maxAge: 14 * 24 * 60 * 60 },
+  pages: { signIn: '/sign-in', error: '/sign-in' },
+  providers: [
+    Credentials({
+      credentials: { email: { label: 'E-mail' }, password: { label: 'Password', type: 'password' } },
+      async authorize(credentials) {
+        const parsed = signInSchema.safeParse(credentials);
+        if (!parsed.success) return null;
+        const found = await findCredentials(parsed.data.email);
+        if (!found) return verifyAgainstDecoy(parsed.data.password).then(() => null);
+        if (!(await verifyPassword(found.passwordHash, parsed.data.password))) return null;
+        return { id: String(found.user.id), email: found.user.email, name: found.user.name };
+      },
+    }),
+  ],
+  callbacks: {
+    session({ session, token }) {
+      if (token.sub) session.user.id = token.sub;
+      return session;
+    },
+  },
+});

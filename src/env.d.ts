@@ -1,0 +1,12 @@
+/// <reference types="astro/client" />
+
+export type SessionUser = { id: number; email: string; name: string };
+
+declare global {
+  namespace App {
+    interface Locals {
+      /** The signed-in user, or null for an anonymous visitor (set by src/middleware.ts). */
+      user: SessionUser | null;
+    }
+  }
+}

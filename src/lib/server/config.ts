@@ -1,0 +1,89 @@
+import { randomBytes } from 'node:crypto';
+import { existsSync, mkdirSync, readFileSync, writeFileSync } from 'node:fs';
+import path from 'node:path';
+import { config as loadDotenv } from 'dotenv';
+import { z } from 'zod';
+
+/**
+ * The app's configuration, read once from the environment (and `.env` when present).
+ * Every variable is listed in `.env.example` and explained in the README.
+ */
+const schema = z.object({
+  NODE_ENV: z.enum(['development', 'production', 'test']).default('development'),
+  DATA_DIR: z.string().min(1).default('./data'),
+  DATABASE_URL: z.string().optional(),
+  AUTH_SECRET: z.string().min(32, 'AUTH_SECRET must be at least 32 characters').optional(),
+  PUBLIC_URL: z.string().url().optional(),
+  MAX_JSON_BODY_BYTES: z.coerce.number().int().positive().default(256 * 1024),
+  SIGN_IN_MAX_FAILURES_PER_EMAIL: z.coerce.number().int().positive().default(5),
+  SIGN_IN_MAX_FAILURES_PER_IP: z.coerce.number().int().positive().default(20),
+  SIGN_IN_WINDOW_MINUTES: z.coerce.number().positive().default(15),
+  SMTP_URL: z.string().optional(),
+  MAIL_FROM: z.string().default('Gullyline <no-reply@gullyline.localhost>'),
+});
+
+export type AppConfig = {
+  env: 'development' | 'production' | 'test';
+  dataDir: string;
+  databaseFile: string;
+  authSecret: string;
+  publicUrl: string | undefined;
+  maxJsonBodyBytes: number;
+  signIn: { maxFailuresPerEmail: number; maxFailuresPerIp: number; windowMs: number };
+  smtpUrl: string | undefined;
+  mailFrom: string;
+};
+
+let cached: AppConfig | undefined;
+
+/** Reads and checks the configuration once; throws with every problem listed when it is wrong. */
+export function getConfig(): AppConfig {
+  if (cached) return cached;
+  loadDotenv({ quiet: true });
+  const parsed = schema.safeParse(process.env);
+  if (!parsed.success) {
+    const problems = parsed.error.issues.map((issue) => `${issue.path.join('.')}: ${issue.message}`);
+    throw new Error(`Gullyline configuration is invalid:\n  ${problems.join('\n  ')}`);
+  }
+  const env = parsed.data;
+  const dataDir = path.resolve(env.DATA_DIR);
+  cached = {
+    env: env.NODE_ENV,
+    dataDir,
+    databaseFile: resolveDatabaseFile(env.DATABASE_URL, dataDir),
+    authSecret: env.AUTH_SECRET ?? developmentSecret(env.NODE_ENV, dataDir),
+    publicUrl: env.PUBLIC_URL,
+    maxJsonBodyBytes: env.MAX_JSON_BODY_BYTES,
+    signIn: {
+      maxFailuresPerEmail: env.SIGN_IN_MAX_FAILURES_PER_EMAIL,
+      maxFailuresPerIp: env.SIGN_IN_MAX_FAILURES_PER_IP,
+      windowMs: env.SIGN_IN_WINDOW_MINUTES * 60_000,
+    },
+    smtpUrl: env.SMTP_URL,
+    mailFrom: env.MAIL_FROM,
+  };
+  return cached;
+}
+
+/** `DATABASE_URL` may be `file:./path.sqlite`, `sqlite:path` or a bare path; default `DATA_DIR/gullyline.sqlite`. */
+function resolveDatabaseFile(url: string | undefined, dataDir: string): string {
+  if (!url) return path.join(dataDir, 'gullyline.sqlite');
+  const bare = url.replace(/^(file|sqlite):(\/\/)?/, '');
+  return path.resolve(bare);
+}
+
+/**
+ * Outside production a missing AUTH_SECRET is replaced by a random one kept in the data folder,
+ * so the demo starts with no set-up and sessions survive a restart. Production must set it.
+ */
+function developmentSecret(env: AppConfig['env'], dataDir: string): string {
+  if (env === 'production') {
+    throw new Error('Gullyline configuration is invalid:\n  AUTH_SECRET: required in production (32+ random characters)');
+  }
+  const file = path.join(dataDir, 'auth-secret');
+  if (existsSync(file)) return readFileSync(file, 'utf8').trim();
+  mkdirSync(dataDir, { recursive: true });
+  const secret = randomBytes(32).toString('base64url');
+  writeFileSync(file, secret, { mode: 0o600 });
+  return secret;
+}

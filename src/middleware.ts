@@ -1,0 +1,83 @@
+import { defineMiddleware, sequence } from 'astro:middleware';
+import { getConfig } from './lib/server/config';
+import { ensureMigrated } from './lib/server/db';
+import { DomainError, PayloadTooLargeError, UnauthorizedError, errorResponse, internalErrorResponse } from './lib/server/http';
+import { loadSessionUser } from './lib/server/session';
+import { throttleSignIn } from './lib/server/sign-in-throttle';
+
+const isApi = (path: string) => path === '/api' || path.startsWith('/api/');
+
+/** API routes open to anonymous callers; every other /api route answers 401 without a session. */
+function isPublicApi(path: string, method: string): boolean {
+  return path.startsWith('/api/auth/') || path === '/api/health' || (path === '/api/accounts' && method === 'POST');
+}
+
+const prepareDatabase = defineMiddleware(async (_context, next) => {
+  await ensureMigrated();
+  return next();
+});
+
+/** Domain errors become their status with a JSON message; anything else a logged 500 with an id. */
+const answerErrors = defineMiddleware(async (context, next) => {
+  try {
+    return await next();
+  } catch (error) {
+    if (error instanceof DomainError) {
+      if (!isApi(context.url.pathname) && error.status === 404) return context.rewrite('/404');
+      return errorResponse(error);
+    }
+    return internalErrorResponse(error);
+  }
+});
+
+/** Headers every answer carries: nothing is loaded from or framed by another host. */
+const setSecurityHeaders = defineMiddleware(async (_context, next) => {
+  const response = await next();
+  const headers = response.headers;
+  headers.set('X-Content-Type-Options', 'nosniff');
+  headers.set('Referrer-Policy', 'same-origin');
+  headers.set(
+    'Content-Security-Policy',
+    [
+      "default-src 'self'",
+      // Astro's island loader is an inline script; MapLibre starts its workers from blob: URLs.
+      "script-src 'self' 'unsafe-inline'",
+      "worker-src 'self' blob:",
+      "style-src 'self' 'unsafe-inline'",
+      "img-src 'self' data: blob:",
+      "font-src 'self'",
+      "connect-src 'self'",
+      "frame-ancestors 'none'",
+      "form-action 'self'",
+      "base-uri 'self'",
+      "object-src 'none'",
+    ].join('; '),
+  );
+  return response;
+});
+
+const limitBodies = defineMiddleware((context, next) => {
+  const declared = Number(context.request.headers.get('content-length') ?? 0);
+  const limit = getConfig().maxJsonBodyBytes;
+  if (isApi(context.url.pathname) && declared > limit) return errorResponse(new PayloadTooLargeError(limit));
+  return next();
+});
+
+const loadUser = defineMiddleware(async (context, next) => {
+  context.locals.user = await loadSessionUser(context.request);
+  return next();
+});
+
+/** Anonymous visitors of /app go to the sign-in page; anonymous API calls get 401 JSON. */
+const guardRoutes = defineMiddleware((context, next) => {
+  if (context.locals.user) return next();
+  const path = context.url.pathname;
+  if (path === '/app' || path.startsWith('/app/')) {
+    const back = encodeURIComponent(path + context.url.search);
+    return context.redirect(`/sign-in?callbackUrl=${back}`, 303);
+  }
+  if (isApi(path) && !isPublicApi(path, context.request.method)) return errorResponse(new UnauthorizedError());
+  return next();
+});
+
+export const onRequest = sequence(setSecurityHeaders, answerErrors, prepareDatabase, limitBodies, loadUser, throttleSignIn, guardRoutes);

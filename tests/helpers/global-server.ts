@@ -1,0 +1,76 @@
+import { spawn, type ChildProcess } from 'node:child_process';
+import { existsSync, mkdtempSync, rmSync } from 'node:fs';
+import { createServer } from 'node:net';
+import { tmpdir } from 'node:os';
+import path from 'node:path';
+import type { TestProject } from 'vitest/node';
+
+declare module 'vitest' {
+  export interface ProvidedContext {
+    baseUrl: string;
+    dataDir: string;
+  }
+}
+
+const ENTRY = 'dist/server/entry.mjs';
+
+function freePort(): Promise<number> {
+  return new Promise((resolve, reject) => {
+    const probe = createServer();
+    probe.once('error', reject);
+    probe.listen(0, '127.0.0.1', () => {
+      const address = probe.address();
+      probe.close(() => (typeof address === 'object' && address ? resolve(address.port) : reject(new Error('no port'))));
+    });
+  });
+}
+
+/**
+ * Starts the built server once per suite, in production mode, with a fresh data folder (its own
+ * SQLite file) so the tests exercise exactly what ships.
+ */
+export default async function setup(project: TestProject) {
+  if (!existsSync(ENTRY)) throw new Error(`${ENTRY} is missing: run "npm run build" before the API and browser tests.`);
+  const dataDir = mkdtempSync(path.join(tmpdir(), 'gullyline-test-'));
+  const port = await freePort();
+  const baseUrl = `http://127.0.0.1:${port}`;
+  const server: ChildProcess = spawn(process.execPath, [ENTRY], {
+    env: {
+      ...process.env,
+      NODE_ENV: 'production',
+      HOST: '127.0.0.1',
+      PORT: String(port),
+      DATA_DIR: dataDir,
+      DATABASE_URL: '',
+      AUTH_SECRET: 'test-secret-that-is-long-enough-for-authjs-0123456789',
+      SIGN_IN_MAX_FAILURES_PER_IP: '200',
+    },
+    stdio: ['ignore', 'pipe', 'pipe'],
+  });
+  let output = '';
+  server.stdout?.on('data', (chunk: Buffer) => (output += chunk.toString()));
+  server.stderr?.on('data', (chunk: Buffer) => (output += chunk.toString()));
+
+  const deadline = Date.now() + 30_000;
+  for (;;) {
+    try {
+      if ((await fetch(`${baseUrl}/api/health`)).ok) break;
+    } catch {
+      // not listening yet
+    }
+    if (server.exitCode !== null || Date.now() > deadline) {
+      server.kill();
+      throw new Error(`The built server did not start:\n${output}`);
+    }
+    await new Promise((resolve) => setTimeout(resolve, 200));
+  }
+  project.provide('baseUrl', baseUrl);
+  project.provide('dataDir', dataDir);
+
+  return async () => {
+    server.kill('SIGTERM');
+    await new Promise((resolve) => server.once('exit', resolve));
+    if (process.env.KEEP_TEST_DATA) console.log(`Test data kept in ${dataDir}\nServer output:\n${output}`);
+    else rmSync(dataDir, { recursive: true, force: true });
+  };
+}

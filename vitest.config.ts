@@ -1,0 +1,38 @@
+/// <reference types="vitest/config" />
+import { getViteConfig } from 'astro/config';
+
+// Three suites, run in this order by `npm test`:
+//   unit — pure cores and repositories against a real SQLite file, in-process;
+//   api  — the built server started on a free port with its own SQLite file;
+//   e2e  — the built server driven through Debian's Chromium.
+export default getViteConfig({
+  test: {
+    projects: [
+      {
+        extends: true,
+        test: { name: 'unit', include: ['tests/lib/**/*.test.ts', 'tests/data-samples/**/*.test.ts'] },
+      },
+      {
+        extends: true,
+        test: {
+          name: 'api',
+          include: ['tests/api/**/*.test.ts'],
+          globalSetup: ['tests/helpers/global-server.ts'],
+          testTimeout: 30_000,
+          hookTimeout: 60_000,
+        },
+      },
+      {
+        extends: true,
+        test: {
+          name: 'e2e',
+          include: ['tests/e2e/**/*.test.ts'],
+          globalSetup: ['tests/helpers/global-server.ts'],
+          testTimeout: 60_000,
+          hookTimeout: 90_000,
+          fileParallelism: false,
+        },
+      },
+    ],
+  },
+});
