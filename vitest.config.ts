@@ -10,7 +10,11 @@ export default getViteConfig({
     projects: [
       {
         extends: true,
-        test: { name: 'unit', include: ['tests/lib/**/*.test.ts', 'tests/data-samples/**/*.test.ts'] },
+        test: {
+          name: 'unit',
+          include: ['tests/lib/**/*.test.ts', 'tests/data-samples/**/*.test.ts'],
+          setupFiles: ['tests/helpers/temp-data-dir.ts'],
+        },
       },
       {
         extends: true,
