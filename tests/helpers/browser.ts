@@ -1,0 +1,69 @@
+import { mkdirSync } from 'node:fs';
+import path from 'node:path';
+import { chromium, type Browser, type BrowserContext, type Page } from 'playwright-core';
+import { inject } from 'vitest';
+
+export const CHROMIUM = '/usr/bin/chromium';
+
+// Flags for Debian's Chromium in a closed network (STACK.md): no background calls home, WebGL 2
+// through SwiftShader so MapLibre renders without a GPU.
+const ARGS = [
+  '--headless',
+  '--no-sandbox',
+  '--disable-gpu',
+  '--disable-quic',
+  '--no-first-run',
+  '--disable-background-networking',
+  '--disable-component-update',
+  '--disable-sync',
+  '--use-angle=swiftshader',
+  '--enable-unsafe-swiftshader',
+];
+
+export const SCREENSHOTS = path.resolve('test-output/screenshots');
+
+export async function launchBrowser(): Promise<Browser> {
+  return chromium.launch({ executablePath: CHROMIUM, args: ARGS });
+}
+
+/**
+ * A browser context that records every request; `outsideRequests` lists those that went to any
+ * host but the app's, which the tests require to be none. Requests to outside hosts are refused
+ * as a closed network would.
+ */
+export async function appContext(browser: Browser, options: { viewport?: { width: number; height: number } } = {}) {
+  const baseUrl = inject('baseUrl');
+  const appOrigin = new URL(baseUrl).origin;
+  const context: BrowserContext = await browser.newContext({ baseURL: baseUrl, viewport: options.viewport ?? { width: 1280, height: 800 } });
+  const outsideRequests: string[] = [];
+  await context.route('**/*', (route) => {
+    const url = route.request().url();
+    if (url.startsWith('data:') || url.startsWith('blob:') || new URL(url).origin === appOrigin) return route.continue();
+    outsideRequests.push(url);
+    return route.abort('blockedbyclient');
+  });
+  return { context, outsideRequests, baseUrl };
+}
+
+export async function screenshot(page: Page, name: string): Promise<string> {
+  mkdirSync(SCREENSHOTS, { recursive: true });
+  const file = path.join(SCREENSHOTS, `${name}.png`);
+  await page.screenshot({ path: file, fullPage: false });
+  return file;
+}
+
+/** Signs in through the sign-in page, as a person would. */
+export async function signInThroughPage(page: Page, email: string, password: string): Promise<void> {
+  await page.goto('/sign-in');
+  await page.getByLabel('E-mail').fill(email);
+  await page.getByLabel('Password').fill(password);
+  await page.getByRole('button', { name: 'Sign in' }).click();
+}
+
+/** Waits until the workspace map has loaded its style and drawn a frame. */
+export async function waitForMap(page: Page): Promise<void> {
+  await page.waitForFunction(() => {
+    const map = (window as unknown as { __gullylineMap?: { loaded(): boolean; areTilesLoaded(): boolean } }).__gullylineMap;
+    return !!map && map.loaded() && map.areTilesLoaded();
+  }, undefined, { timeout: 30_000 });
+}
