@@ -1,3 +1,4 @@
+import { defineConfig } from 'eslint/config';
 import tseslint from 'typescript-eslint';
 
 // The pure cores must stay pure: no server code, no Astro virtual modules, no Node built-ins.
@@ -9,7 +10,7 @@ const pureCoreImports = {
   ],
 };
 
-export default tseslint.config(
+export default defineConfig(
   { ignores: ['dist/', 'node_modules/', '.astro/', 'data/', 'test-output/', 'public/'] },
   ...tseslint.configs.recommended,
   {

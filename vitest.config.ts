@@ -34,7 +34,9 @@ export default getViteConfig({
           globalSetup: ['tests/helpers/global-server.ts'],
           testTimeout: 60_000,
           hookTimeout: 90_000,
-          fileParallelism: false,
+          // One browser suite at a time: two Chromiums on two cores only slow each other down.
+          pool: 'forks',
+          poolOptions: { forks: { singleFork: true } },
         },
       },
     ],

@@ -8,7 +8,7 @@ import { createProperty } from '../src/lib/server/repos/properties';
 import { createUser, findCredentials } from '../src/lib/server/repos/users';
 import { DEMO_ACCOUNTS, DEMO_PASSWORD } from './demo-accounts';
 
-type Manifest = { name: string; region: string; crs: string; extentWgs84: [number, number, number, number] };
+type Manifest = { name: string; region: string; crs: string; extent: { wgs84: [number, number, number, number] } };
 
 export async function seedDemo(): Promise<void> {
   const manifest = JSON.parse(readFileSync('data-samples/saltbush-rise.json', 'utf8')) as Manifest;
@@ -28,7 +28,7 @@ export async function seedDemo(): Promise<void> {
     return;
   }
   const property = await createProperty(
-    { name: manifest.name, region: manifest.region, crs: manifest.crs, extentWgs84: manifest.extentWgs84 },
+    { name: manifest.name, region: manifest.region, crs: manifest.crs, extentWgs84: manifest.extent.wgs84 },
     ownerId,
   );
   for (const [index, account] of DEMO_ACCOUNTS.entries()) {

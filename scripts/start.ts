@@ -33,7 +33,7 @@ async function main(): Promise<void> {
   if (!existsSync(ENTRY)) throw new Error(`${ENTRY} is missing: run "npm run build" first.`);
   const config = getConfig();
   await run(process.execPath, ['--import', 'tsx', 'scripts/db.ts', process.argv.includes('--demo') ? 'seed' : 'migrate']);
-  const env = { ...process.env, HOST: process.env.HOST ?? '127.0.0.1', PORT: process.env.PORT ?? '4321' };
+  const env: NodeJS.ProcessEnv = { ...process.env, HOST: process.env.HOST ?? '127.0.0.1', PORT: process.env.PORT ?? '4321' };
   if (!config.smtpUrl) {
     const catcher = await startMailCatcher({ dataDir: config.dataDir });
     env.SMTP_URL = catcher.url;

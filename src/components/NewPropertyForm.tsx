@@ -1,5 +1,5 @@
 import { useMutation, useQuery } from '@tanstack/react-query';
-import { useState, type FormEvent } from 'react';
+import { useState } from 'react';
 import { ApiError, api } from '../lib/client/api';
 import { withQueryClient } from './QueryRoot';
 
@@ -23,7 +23,7 @@ function NewPropertyForm() {
   });
   const fields = create.error instanceof ApiError ? create.error.fields : {};
 
-  function submit(event: FormEvent) {
+  function submit(event: { preventDefault(): void }) {
     event.preventDefault();
     create.mutate({ name, region, crs: crsCode });
   }
