@@ -1,0 +1,183 @@
+import 'maplibre-gl/dist/maplibre-gl.css';
+import { useEffect, useId, useMemo, useRef, useState } from 'react';
+import Map, { Layer, NavigationControl, ScaleControl, Source, useMap, type MapRef } from 'react-map-gl/maplibre';
+import type { LngLatBoundsLike, Map as MaplibreMap, MapMouseEvent } from 'maplibre-gl';
+import { createExtentFeatures, toUsableExtent } from './extent';
+import { graticuleBboxFor, type BboxWgs84 } from './graticule';
+import { PROPERTY_EXTENT_SOURCE_ID, propertyExtentLayers } from './layers';
+import { BASE_FIRST_LABEL_LAYER_ID, createBaseStyle } from './style';
+import { MAP_COLOURS } from './theme';
+
+declare global {
+  interface Window {
+    /** The live map, set once it has loaded, so browser tests can wait for `loaded()` / `idle`. */
+    __gullylineMap?: MaplibreMap;
+  }
+}
+
+export type PropertyMapProps = {
+  propertyName: string;
+  /** [west, south, east, north] in WGS84 degrees, or null while the property has no geometry yet. */
+  extentWgs84: [number, number, number, number] | null;
+};
+
+/** Mainland Australia: with no extent the map frames it, which centres on inland country. */
+const AUSTRALIA_MAINLAND_BOUNDS: BboxWgs84 = [113.2, -39.2, 153.7, -10.6];
+const MAX_FIT_ZOOM = 16;
+const NO_EXTENT_MESSAGE =
+  'No extent yet — upload an elevation model or draw a fence line to place this property on the map.';
+
+/** Padding for fitting the extent: generous on a desktop, never more than the screen can spare. */
+function fitPadding(map: MaplibreMap): number {
+  const container = map.getContainer();
+  return Math.round(Math.min(48, 0.12 * Math.min(container.clientWidth, container.clientHeight)));
+}
+
+/** A mutable copy, as MapLibre's bounds types want. */
+function toBounds([west, south, east, north]: BboxWgs84): LngLatBoundsLike {
+  return [west, south, east, north];
+}
+
+function fitExtent(map: MaplibreMap, bbox: BboxWgs84): void {
+  map.fitBounds(toBounds(bbox), { padding: fitPadding(map), maxZoom: MAX_FIT_ZOOM, duration: 0 });
+}
+
+function extentKeyOf(extent: BboxWgs84 | null): string {
+  return extent ? extent.join(',') : '';
+}
+
+/** Inverse of extentKeyOf; exact, since JavaScript prints numbers so that they parse back unchanged. */
+function extentFromKey(key: string): BboxWgs84 | null {
+  if (!key) return null;
+  const [west = NaN, south = NaN, east = NaN, north = NaN] = key.split(',').map(Number);
+  return [west, south, east, north];
+}
+
+/**
+ * The property's map: Gullyline's offline base style with the property extent and its name,
+ * navigation and metric scale controls, and a readout of the pointer's coordinates.
+ * Used from Astro as `<PropertyMap client:only="react" … />`; it fills its parent's box.
+ */
+export default function PropertyMap({ propertyName, extentWgs84 }: PropertyMapProps) {
+  const mapRef = useRef<MapRef>(null);
+  const messageId = useId();
+  const [loaded, setLoaded] = useState(false);
+
+  // Memos are keyed on the numbers, not the array, so a re-render with an equal extent is free.
+  const extentKey = extentKeyOf(toUsableExtent(extentWgs84));
+  const extent = useMemo(() => extentFromKey(extentKey), [extentKey]);
+  // Inside Australia this is always the same constant, so the style (and its graticule) is built once.
+  const graticuleBbox = useMemo(() => graticuleBboxFor(extent), [extent]);
+  const mapStyle = useMemo(() => createBaseStyle({ graticuleBboxWgs84: graticuleBbox }), [graticuleBbox]);
+  const extentFeatures = useMemo(
+    () => (extent ? createExtentFeatures(extent, propertyName) : null),
+    [extent, propertyName],
+  );
+
+  // The first frame already shows the extent (or Australia); the fit with padding follows on load.
+  const [initialViewState] = useState(() => ({ bounds: toBounds(extent ?? AUSTRALIA_MAINLAND_BOUNDS) }));
+
+  // Fit on load, and again whenever the extent changes (e.g. an elevation model was just processed).
+  // The map is published for browser tests only after the first fit, so waiting on it sees the final view.
+  const fittedKey = useRef<string | null>(null);
+  const publishedMap = useRef<MaplibreMap | null>(null);
+  useEffect(() => {
+    const map = mapRef.current?.getMap();
+    if (!loaded || !map || fittedKey.current === extentKey) return;
+    fittedKey.current = extentKey;
+    fitExtent(map, extent ?? AUSTRALIA_MAINLAND_BOUNDS);
+    window.__gullylineMap = map;
+    publishedMap.current = map;
+  }, [loaded, extentKey, extent]);
+
+  // Unpublish on unmount (the map ref is already detached by then, hence the second ref).
+  useEffect(
+    () => () => {
+      if (publishedMap.current && window.__gullylineMap === publishedMap.current) delete window.__gullylineMap;
+    },
+    [],
+  );
+
+  return (
+    <div
+      role="region"
+      aria-label={`Map of ${propertyName}`}
+      aria-describedby={extent ? undefined : messageId}
+      data-testid="property-map"
+      className="relative h-full min-h-80 w-full overflow-hidden"
+    >
+      <Map
+        ref={mapRef}
+        mapStyle={mapStyle}
+        initialViewState={initialViewState}
+        onLoad={() => setLoaded(true)}
+        maxZoom={18}
+        renderWorldCopies={false}
+        // Everything on this map is Gullyline's own; there is no third-party data to attribute.
+        attributionControl={false}
+        style={{ position: 'absolute', inset: 0 }}
+      >
+        {extentFeatures && (
+          <Source id={PROPERTY_EXTENT_SOURCE_ID} type="geojson" data={extentFeatures}>
+            {propertyExtentLayers.map((layer) => (
+              // Fill and outline go under the grid labels; the property's name stays on top.
+              <Layer key={layer.id} {...layer} beforeId={layer.type === 'symbol' ? undefined : BASE_FIRST_LABEL_LAYER_ID} />
+            ))}
+          </Source>
+        )}
+        <NavigationControl position="top-right" visualizePitch={false} />
+        <ScaleControl position="bottom-left" unit="metric" maxWidth={120} />
+        <CursorReadout />
+      </Map>
+
+      {!extent && (
+        <div className="pointer-events-none absolute inset-0 flex items-center justify-center p-6">
+          <p
+            id={messageId}
+            role="status"
+            className="max-w-sm rounded-lg px-5 py-4 text-center text-base leading-snug shadow-md"
+            style={{ backgroundColor: `${MAP_COLOURS.casing}f2`, color: MAP_COLOURS.text, border: `1px solid ${MAP_COLOURS.gridMedium}` }}
+          >
+            {NO_EXTENT_MESSAGE}
+          </p>
+        </div>
+      )}
+    </div>
+  );
+}
+
+type Cursor = { lat: number; lon: number };
+
+/**
+ * Latitude and longitude under the pointer (or the last tap), 5 decimals (about 1 m).
+ * It listens to the map itself so that pointer moves re-render only this box, not the map.
+ */
+function CursorReadout() {
+  const { current: mapRef } = useMap();
+  const [cursor, setCursor] = useState<Cursor | null>(null);
+
+  useEffect(() => {
+    const map = mapRef?.getMap();
+    if (!map) return;
+    const show = (event: MapMouseEvent) => setCursor({ lat: event.lngLat.lat, lon: event.lngLat.lng });
+    const clear = () => setCursor(null);
+    map.on('mousemove', show);
+    map.on('click', show);
+    map.on('mouseout', clear);
+    return () => {
+      map.off('mousemove', show);
+      map.off('click', show);
+      map.off('mouseout', clear);
+    };
+  }, [mapRef]);
+
+  return (
+    <div
+      data-testid="cursor-readout"
+      className="pointer-events-none absolute bottom-2 right-2 z-10 rounded px-2 py-1 font-mono text-xs tabular-nums shadow-sm"
+      style={{ backgroundColor: `${MAP_COLOURS.casing}e6`, color: MAP_COLOURS.text }}
+    >
+      {cursor ? `lat ${cursor.lat.toFixed(5)}, lon ${cursor.lon.toFixed(5)}` : 'lat —, lon —'}
+    </div>
+  );
+}
