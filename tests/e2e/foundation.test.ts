@@ -21,6 +21,8 @@ describe('a new user', () => {
     const account = newAccount('browser');
 
     await page.goto('/');
+    const preview = page.getByRole('img', { name: /map of the invented demo property/ });
+    await expect.poll(() => preview.evaluate((img: HTMLImageElement) => img.complete && img.naturalWidth)).toBeGreaterThan(0);
     await screenshot(page, 'landing');
     await page.getByRole('link', { name: 'Create an account' }).first().click();
     await page.getByLabel('Your name').fill(account.name);

@@ -1,0 +1,55 @@
+import { execFileSync } from 'node:child_process';
+import type { Browser } from 'playwright-core';
+import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
+import { DEMO_ACCOUNTS, DEMO_PASSWORD } from '../../scripts/demo-accounts';
+import { appContext, launchBrowser, screenshot, signInThroughPage, waitForMap } from '../helpers/browser';
+
+let browser: Browser;
+beforeAll(async () => {
+  // `npm run db:seed` against the test server's own database, as the demo command runs it.
+  execFileSync(process.execPath, ['--import', 'tsx', 'scripts/db.ts', 'seed'], {
+    env: { ...process.env, DATA_DIR: inject('dataDir'), DATABASE_URL: '', NODE_ENV: 'test' },
+    stdio: 'pipe',
+  });
+  browser = await launchBrowser();
+});
+afterAll(() => browser?.close());
+
+describe('the demo property', () => {
+  it('opens for the demo manager with its extent and name drawn in Noto Sans from the app', async () => {
+    const manager = DEMO_ACCOUNTS.find((account) => account.role === 'manager')!;
+    const { context, outsideRequests } = await appContext(browser);
+    const page = await context.newPage();
+    const glyphAnswers: number[] = [];
+    page.on('response', (response) => {
+      if (response.url().includes('/glyphs/')) glyphAnswers.push(response.status());
+    });
+    await signInThroughPage(page, manager.email, DEMO_PASSWORD);
+    await page.waitForURL('**/app');
+    await page.getByRole('link', { name: /Saltbush Rise/ }).click();
+    await waitForMap(page);
+    const labels = await page.evaluate(
+      () => window.__gullylineMap!.queryRenderedFeatures({ layers: ['property-extent-label'] }).map((f) => f.properties.name),
+    );
+    expect(labels).toContain('Saltbush Rise');
+    expect(glyphAnswers.length).toBeGreaterThan(0);
+    expect(glyphAnswers.every((status) => status === 200)).toBe(true);
+    await screenshot(page, 'demo-workspace');
+
+    await page.setViewportSize({ width: 390, height: 800 });
+    await screenshot(page, 'demo-workspace-phone');
+    expect(outsideRequests).toEqual([]);
+    await context.close();
+  });
+
+  it('lets every demo account sign in', async () => {
+    for (const account of DEMO_ACCOUNTS) {
+      const { context } = await appContext(browser);
+      const page = await context.newPage();
+      await signInThroughPage(page, account.email, DEMO_PASSWORD);
+      await page.waitForURL('**/app');
+      expect(await page.getByTestId('property-list').textContent()).toContain(account.role);
+      await context.close();
+    }
+  });
+});
