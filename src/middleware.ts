@@ -1,6 +1,6 @@
 import { defineMiddleware, sequence } from 'astro:middleware';
 import { getConfig } from './lib/server/config';
-import { ensureMigrated } from './lib/server/db';
+import { ensureReady } from './lib/server/startup';
 import { DomainError, PayloadTooLargeError, UnauthorizedError, errorResponse, internalErrorResponse } from './lib/server/http';
 import { loadSessionUser } from './lib/server/session';
 import { throttleSignIn } from './lib/server/sign-in-throttle';
@@ -13,7 +13,7 @@ function isPublicApi(path: string, method: string): boolean {
 }
 
 const prepareDatabase = defineMiddleware(async (_context, next) => {
-  await ensureMigrated();
+  await ensureReady();
   return next();
 });
 
@@ -56,9 +56,12 @@ const setSecurityHeaders = defineMiddleware(async (_context, next) => {
   return response;
 });
 
+/** JSON bodies have a small limit, file uploads their own; both are checked before reading. */
 const limitBodies = defineMiddleware((context, next) => {
   const declared = Number(context.request.headers.get('content-length') ?? 0);
-  const limit = getConfig().maxJsonBodyBytes;
+  const isJson = /json/i.test(context.request.headers.get('content-type') ?? '');
+  const { maxJsonBodyBytes, maxUploadBytes } = getConfig();
+  const limit = isJson ? maxJsonBodyBytes : maxUploadBytes;
   if (isApi(context.url.pathname) && declared > limit) return errorResponse(new PayloadTooLargeError(limit));
   return next();
 });

@@ -74,6 +74,9 @@ export function plainElevationM(northM: number, offsetFromMainCreekM: number): n
   return PLAIN_BASE_M + PLAIN_FALL_SOUTH_M_PER_M * northM + VALLEY_SIDE_SLOPE_M_PER_M * valley;
 }
 
+/** Cross-fall of a flood flat towards its channel, m per m (1 in 100). */
+export const FLOOD_FLAT_CROSS_FALL = 0.01;
+
 /**
  * Depth of a channel below the plain at a distance from its centreline: a flat bed of full depth,
  * a steep bank up to the flood flat, a flood flat, and a smooth rise back to the plain.
@@ -85,12 +88,15 @@ export function plainElevationM(northM: number, offsetFromMainCreekM: number): n
  */
 export function channelIncisionM(distanceM: number, depthM: number, profile: ChannelProfile): number {
   const { bedHalfWidthM, bankTopM, floodFlatDepthM, floodFlatHalfWidthM, reachM } = profile;
+  // The flood flat falls gently towards the bank, as real ones do, so it drains into the channel
+  // instead of carrying parallel runs of its own.
+  const flatDepthM = (d: number) => floodFlatDepthM + FLOOD_FLAT_CROSS_FALL * (floodFlatHalfWidthM - d);
   if (distanceM <= bedHalfWidthM) return depthM;
   if (distanceM <= bankTopM) {
     const t = (distanceM - bedHalfWidthM) / (bankTopM - bedHalfWidthM);
-    return depthM + (floodFlatDepthM - depthM) * t;
+    return depthM + (flatDepthM(bankTopM) - depthM) * t;
   }
-  if (distanceM <= floodFlatHalfWidthM) return floodFlatDepthM;
+  if (distanceM <= floodFlatHalfWidthM) return flatDepthM(distanceM);
   return floodFlatDepthM * (1 - smoothstep(floodFlatHalfWidthM, reachM, distanceM));
 }
 

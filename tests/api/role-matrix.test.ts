@@ -8,8 +8,47 @@ import { TestClient, closeServerDb, newAccount, serverDb, signedInClient } from 
 
 const CALLERS = ['anonymous', 'outsider', 'viewer', 'crew', 'manager', 'owner'] as const;
 type Caller = (typeof CALLERS)[number];
-type Context = { propertyId: number; targetUserId: number };
-type Entry = { expect: Record<Caller, number>; body?: (context: Context) => Promise<unknown> | unknown };
+type Context = { propertyId: number; targetUserId: number; elevationModelId: number; runId: number; modelId?: number };
+type Entry = {
+  expect: Record<Caller, number>;
+  body?: (context: Context) => Promise<unknown> | unknown;
+  /** A file body instead of JSON. */
+  file?: { bytes: Uint8Array; type: string; query: string };
+  /** Sets up what one request needs (e.g. a run that is still queued) and overrides route parameters. */
+  prepare?: (context: Context) => Promise<Partial<Context>>;
+};
+
+const DEM = new Uint8Array(readFileSync('data-samples/saltbush-rise-dem.tif'));
+
+/** A run row that waits in line (not started by the server), so it can be cancelled. */
+async function queuedRun(context: Context): Promise<Partial<Context>> {
+  const [row] = await serverDb()('terrain_runs')
+    .insert({ property_id: context.propertyId, elevation_model_id: context.elevationModelId, status: 'queued', percent: 0, threshold_ha: 5, created_at: new Date().toISOString() })
+    .returning('id');
+  return { runId: row.id };
+}
+
+/** An elevation model row of its own (no file), for a delete to remove. */
+async function spareModel(context: Context): Promise<Partial<Context>> {
+  const [row] = await serverDb()('elevation_models')
+    .insert({
+      property_id: context.propertyId, name: 'spare.tif', stored_file: 'elevation-models/spare/source.tif', size_bytes: 1, crs: 'EPSG:7854',
+      crs_name: 'GDA2020 / MGA zone 54', width: 1, height: 1, cell_size_m: 5, extent_west: 141, extent_south: -32, extent_east: 142, extent_north: -31,
+      created_at: new Date().toISOString(),
+    })
+    .returning('id');
+  return { modelId: row.id };
+}
+
+/** Waits until no run over the model is queued or running, so a new one may start. */
+async function idleModel(context: Context): Promise<Partial<Context>> {
+  for (let i = 0; i < 300; i++) {
+    const busy = await serverDb()('terrain_runs').where({ elevation_model_id: context.elevationModelId }).whereIn('status', ['queued', 'running']).first('id');
+    if (!busy) return {};
+    await new Promise((resolve) => setTimeout(resolve, 100));
+  }
+  throw new Error('terrain runs did not finish');
+}
 
 const everyone = (status: number, anonymous = 401): Record<Caller, number> => ({
   anonymous, outsider: status, viewer: status, crew: status, manager: status, owner: status,
@@ -47,6 +86,22 @@ const MATRIX: Record<string, Entry> = {
   'GET /api/properties/[id]/members': { expect: atLeast('viewer', 200) },
   'PATCH /api/properties/[id]/members/[userId]': { expect: atLeast('owner', 200), body: () => ({ role: 'viewer' }) },
   'DELETE /api/properties/[id]/members/[userId]': { expect: atLeast('owner', 204) },
+  'GET /api/properties/[id]/drainage-lines': { expect: atLeast('viewer', 200) },
+  'GET /api/properties/[id]/elevation-models': { expect: atLeast('viewer', 200) },
+  'POST /api/properties/[id]/elevation-models': {
+    expect: atLeast('manager', 201),
+    file: { bytes: DEM, type: 'image/tiff', query: '?name=saltbush-rise-dem.tif' },
+  },
+  'DELETE /api/properties/[id]/elevation-models/[modelId]': { expect: atLeast('manager', 204), prepare: spareModel },
+  'POST /api/properties/[id]/terrain-runs': {
+    expect: atLeast('manager', 201),
+    prepare: idleModel,
+    body: ({ elevationModelId }) => ({ elevationModelId, thresholdHa: 20 }),
+  },
+  'GET /api/properties/[id]/terrain-runs/[runId]': { expect: atLeast('viewer', 200) },
+  'POST /api/properties/[id]/terrain-runs/[runId]/cancel': { expect: atLeast('manager', 200), prepare: queuedRun },
+  'GET /api/properties/[id]/terrain-runs/[runId]/contours.geojson': { expect: atLeast('viewer', 200) },
+  'GET /api/properties/[id]/terrain-runs/[runId]/hillshade.png': { expect: atLeast('viewer', 200) },
 };
 
 /** Every "METHOD /api/route" exported by a file under src/pages/api. */
@@ -75,11 +130,13 @@ function fill(route: string, context: Context): string {
     .replace('[...path]', 'no-such-route')
     .replace('[code]', 'EPSG:7854')
     .replace('[id]', String(context.propertyId))
-    .replace('[userId]', String(context.targetUserId));
+    .replace('[userId]', String(context.targetUserId))
+    .replace('[runId]', String(context.runId))
+    .replace('[modelId]', String(context.modelId ?? context.elevationModelId));
 }
 
 const clients = {} as Record<Caller, TestClient>;
-const context: Context = { propertyId: 0, targetUserId: 0 };
+const context: Context = { propertyId: 0, targetUserId: 0, elevationModelId: 0, runId: 0 };
 
 beforeAll(async () => {
   clients.anonymous = new TestClient();
@@ -97,7 +154,13 @@ beforeAll(async () => {
   await outsider.client.json('POST', '/api/properties', { name: 'Elsewhere Station', crs: 'EPSG:7855' });
   const target = await signedInClient('target');
   context.targetUserId = target.userId;
-});
+  // One finished terrain run, for the routes that read a run and its map files.
+  const upload = await owner.client.request('POST', `/api/properties/${context.propertyId}/elevation-models?name=dem.tif`, DEM, { 'Content-Type': 'image/tiff' });
+  const uploaded = (await upload.json()) as { elevationModel: { id: number }; run: { id: number } };
+  context.elevationModelId = uploaded.elevationModel.id;
+  context.runId = uploaded.run.id;
+  await idleModel(context);
+}, 60_000);
 
 afterAll(closeServerDb);
 
@@ -118,9 +181,11 @@ describe('role matrix', () => {
     const [method, route] = key.split(' ') as [string, string];
     it.each(CALLERS.map((caller) => [caller, entry.expect[caller]] as const))(`${key} as %s → %i`, async (caller, expected) => {
       await resetTarget();
-      const body = entry.body ? await entry.body(context) : undefined;
+      const here = { ...context, ...(entry.prepare ? await entry.prepare(context) : {}) };
       const requestMethod = method === 'ALL' ? 'GET' : method;
-      const response = await clients[caller].request(requestMethod, fill(route, context), body);
+      const response = entry.file
+        ? await clients[caller].request(requestMethod, fill(route, here) + entry.file.query, entry.file.bytes, { 'Content-Type': entry.file.type })
+        : await clients[caller].request(requestMethod, fill(route, here), entry.body ? await entry.body(here) : undefined);
       expect(response.status).toBe(expected);
       if (response.status >= 400) {
         const answer = (await response.json()) as { error?: string };

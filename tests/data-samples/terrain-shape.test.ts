@@ -32,8 +32,11 @@ describe('channelIncisionM', () => {
     expect(channelIncisionM(0, 3, profile)).toBe(3);
     expect(channelIncisionM(2, 3, profile)).toBe(3);
     // Halfway up the bank: (3 + 0.5) / 2.
-    expect(channelIncisionM(4, 3, profile)).toBeCloseTo(1.75, 12);
-    expect(channelIncisionM(20, 3, profile)).toBe(0.5);
+    // Bank: halfway from the 3 m bed up to the flood flat's edge at 0.5 + 0.01 × (30 − 6) = 0.74 m.
+    expect(channelIncisionM(4, 3, profile)).toBeCloseTo(1.87, 12);
+    // Flood flat: 0.5 m at its outer edge, falling 1 in 100 towards the bank.
+    expect(channelIncisionM(20, 3, profile)).toBeCloseTo(0.6, 12);
+    expect(channelIncisionM(30, 3, profile)).toBeCloseTo(0.5, 12);
     expect(channelIncisionM(40, 3, profile)).toBeCloseTo(0.25, 12);
     expect(channelIncisionM(50, 3, profile)).toBe(0);
     expect(channelIncisionM(500, 3, profile)).toBe(0);

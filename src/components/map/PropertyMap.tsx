@@ -1,5 +1,5 @@
 import 'maplibre-gl/dist/maplibre-gl.css';
-import { useEffect, useId, useMemo, useRef, useState } from 'react';
+import { useEffect, useId, useMemo, useRef, useState, type ReactNode } from 'react';
 import Map, { Layer, NavigationControl, ScaleControl, Source, useMap, type MapRef } from 'react-map-gl/maplibre';
 import type { LngLatBoundsLike, Map as MaplibreMap, MapMouseEvent } from 'maplibre-gl';
 import { createExtentFeatures, toUsableExtent } from './extent';
@@ -19,6 +19,8 @@ export type PropertyMapProps = {
   propertyName: string;
   /** [west, south, east, north] in WGS84 degrees, or null while the property has no geometry yet. */
   extentWgs84: [number, number, number, number] | null;
+  /** Sources and layers drawn over the base map (terrain, drainage lines, …). */
+  children?: ReactNode;
 };
 
 /** Mainland Australia: with no extent the map frames it, which centres on inland country. */
@@ -58,7 +60,7 @@ function extentFromKey(key: string): BboxWgs84 | null {
  * navigation and metric scale controls, and a readout of the pointer's coordinates.
  * Used from Astro as `<PropertyMap client:only="react" … />`; it fills its parent's box.
  */
-export default function PropertyMap({ propertyName, extentWgs84 }: PropertyMapProps) {
+export default function PropertyMap({ propertyName, extentWgs84, children }: PropertyMapProps) {
   const mapRef = useRef<MapRef>(null);
   const messageId = useId();
   const [loaded, setLoaded] = useState(false);
@@ -125,6 +127,7 @@ export default function PropertyMap({ propertyName, extentWgs84 }: PropertyMapPr
             ))}
           </Source>
         )}
+        {children}
         <NavigationControl position="top-right" visualizePitch={false} />
         <ScaleControl position="bottom-left" unit="metric" maxWidth={120} />
         <CursorReadout />

@@ -1,4 +1,6 @@
+import type { FeatureCollection } from 'geojson';
 import type { Member, PropertySummary } from '../schemas/property';
+import type { ElevationModelView, TerrainRun } from '../schemas/terrain';
 
 /** An error answer from the API, with the message and per-field problems it carried. */
 export class ApiError extends Error {
@@ -38,4 +40,48 @@ export const api = {
     request<{ member: Member }>('PATCH', `/api/properties/${propertyId}/members/${userId}`, { role }),
   removeMember: (propertyId: number, userId: number) =>
     request<void>('DELETE', `/api/properties/${propertyId}/members/${userId}`),
+  listElevationModels: (propertyId: number) =>
+    request<{ elevationModels: ElevationModelView[] }>('GET', `/api/properties/${propertyId}/elevation-models`),
+  getTerrainRun: (propertyId: number, runId: number) =>
+    request<{ run: TerrainRun }>('GET', `/api/properties/${propertyId}/terrain-runs/${runId}`),
+  cancelTerrainRun: (propertyId: number, runId: number) =>
+    request<{ run: TerrainRun }>('POST', `/api/properties/${propertyId}/terrain-runs/${runId}/cancel`),
+  startTerrainRun: (propertyId: number, elevationModelId: number, thresholdHa?: number) =>
+    request<{ run: TerrainRun }>('POST', `/api/properties/${propertyId}/terrain-runs`, { elevationModelId, thresholdHa }),
+  drainageLines: (propertyId: number) => request<FeatureCollection>('GET', `/api/properties/${propertyId}/drainage-lines`),
 };
+
+export type UploadedElevationModel = { elevationModel: ElevationModelView; run: TerrainRun; warnings: string[] };
+
+/**
+ * Sends an elevation model file as the request body, reporting upload progress (fetch cannot,
+ * so this one call uses XMLHttpRequest). Rejects with an ApiError carrying the server's message.
+ */
+export function uploadElevationModel(
+  propertyId: number,
+  file: File,
+  options: { crs?: string; thresholdHa?: number; onProgress: (fraction: number) => void },
+): Promise<UploadedElevationModel> {
+  const query = new URLSearchParams({ name: file.name });
+  if (options.crs) query.set('crs', options.crs);
+  if (options.thresholdHa !== undefined) query.set('thresholdHa', String(options.thresholdHa));
+  return new Promise((resolve, reject) => {
+    const xhr = new XMLHttpRequest();
+    xhr.open('POST', `/api/properties/${propertyId}/elevation-models?${query}`);
+    xhr.setRequestHeader('Content-Type', 'image/tiff');
+    xhr.upload.onprogress = (event) => event.lengthComputable && options.onProgress(event.loaded / event.total);
+    xhr.onerror = () => reject(new ApiError(0, 'The upload was interrupted. Check your connection and try again.'));
+    xhr.onload = () => {
+      const data = (() => {
+        try {
+          return JSON.parse(xhr.responseText) as Record<string, unknown>;
+        } catch {
+          return {};
+        }
+      })();
+      if (xhr.status === 201) resolve(data as UploadedElevationModel);
+      else reject(new ApiError(xhr.status, (data.error as string) ?? `The server answered ${xhr.status}.`, (data.fields as Record<string, string>) ?? {}));
+    };
+    xhr.send(file);
+  });
+}

@@ -15,6 +15,8 @@ const schema = z.object({
   AUTH_SECRET: z.string().min(32, 'AUTH_SECRET must be at least 32 characters').optional(),
   PUBLIC_URL: z.string().url().optional(),
   MAX_JSON_BODY_BYTES: z.coerce.number().int().positive().default(256 * 1024),
+  MAX_UPLOAD_BYTES: z.coerce.number().int().positive().default(1024 * 1024 * 1024),
+  MAX_RASTER_CELLS: z.coerce.number().int().positive().default(64_000_000),
   SIGN_IN_MAX_FAILURES_PER_EMAIL: z.coerce.number().int().positive().default(5),
   SIGN_IN_MAX_FAILURES_PER_IP: z.coerce.number().int().positive().default(20),
   SIGN_IN_WINDOW_MINUTES: z.coerce.number().positive().default(15),
@@ -29,6 +31,8 @@ export type AppConfig = {
   authSecret: string;
   publicUrl: string | undefined;
   maxJsonBodyBytes: number;
+  maxUploadBytes: number;
+  maxRasterCells: number;
   signIn: { maxFailuresPerEmail: number; maxFailuresPerIp: number; windowMs: number };
   smtpUrl: string | undefined;
   mailFrom: string;
@@ -54,6 +58,8 @@ export function getConfig(): AppConfig {
     authSecret: env.AUTH_SECRET ?? developmentSecret(env.NODE_ENV, dataDir),
     publicUrl: env.PUBLIC_URL,
     maxJsonBodyBytes: env.MAX_JSON_BODY_BYTES,
+    maxUploadBytes: env.MAX_UPLOAD_BYTES,
+    maxRasterCells: env.MAX_RASTER_CELLS,
     signIn: {
       maxFailuresPerEmail: env.SIGN_IN_MAX_FAILURES_PER_EMAIL,
       maxFailuresPerIp: env.SIGN_IN_MAX_FAILURES_PER_IP,

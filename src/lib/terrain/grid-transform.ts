@@ -66,7 +66,8 @@ export function checkGridTransform(transform: GridTransform): void {
   }
   if (!(Number.isFinite(cellSizeX) && cellSizeX > 0 && Number.isFinite(cellSizeY) && cellSizeY > 0)) {
     throw new RangeError(
-      `grid cell sizes must be finite and > 0 in CRS units (cellSizeY positive, rows going south), got ${cellSizeX} × ${cellSizeY}`,
+      'grid cell sizes must be finite and > 0 in CRS units (cellSizeY positive, rows going south), ' +
+        `got ${cellSizeX} × ${cellSizeY}`,
     );
   }
 }

@@ -4,7 +4,7 @@ import { bundledMigrations } from '../../../src/lib/server/migration-source';
 
 afterAll(closeDb);
 
-const TABLES = ['users', 'properties', 'memberships', 'invitations', 'audit_log'];
+const TABLES = ['users', 'properties', 'memberships', 'invitations', 'audit_log', 'elevation_models', 'terrain_runs', 'drainage_lines'];
 
 describe('migrations', () => {
   it('create every table, roll all the way back, and apply again', async () => {
@@ -16,7 +16,7 @@ describe('migrations', () => {
     for (const table of TABLES) expect(await db().schema.hasTable(table), table).toBe(false);
 
     const [, applied] = await db().migrate.latest(source);
-    expect(applied).toHaveLength(TABLES.length);
+    expect(applied).toEqual(await source.migrationSource.getMigrations([]));
     expect(applied[0]).toMatch(/^\d{14}_users\.ts$/);
   });
 

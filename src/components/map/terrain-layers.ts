@@ -1,0 +1,89 @@
+import type { ExpressionSpecification } from '@maplibre/maplibre-gl-style-spec';
+import type { LayerSpecification } from 'maplibre-gl';
+import { MAP_COLOURS, MAP_FONTS } from './theme';
+
+type LineLayer = Extract<LayerSpecification, { type: 'line' }>;
+type RasterLayer = Extract<LayerSpecification, { type: 'raster' }>;
+type SymbolLayer = Extract<LayerSpecification, { type: 'symbol' }>;
+
+/** Terrain colours: water in a deep, saturated blue that stays apart from the ochre and bark of the ground. */
+export const TERRAIN_COLOURS = {
+  drainage: '#1f5f99',
+  drainageCasing: '#f4f8fb',
+  contour: '#7a5a3a',
+} as const;
+
+export const DRAINAGE_SOURCE_ID = 'drainage-lines';
+export const contoursSourceId = (runId: number) => `contours-${runId}`;
+export const hillshadeSourceId = (runId: number) => `hillshade-${runId}`;
+
+/** The hillshade image of one terrain run, half transparent over the ground colour. */
+export function hillshadeLayer(runId: number): RasterLayer {
+  return {
+    id: `hillshade-${runId}`,
+    type: 'raster',
+    source: hillshadeSourceId(runId),
+    paint: { 'raster-opacity': 0.55, 'raster-fade-duration': 0, 'raster-resampling': 'linear' },
+  };
+}
+
+/** Contour lines: thin bark-brown lines, every fifth level a little heavier. */
+export function contourLineLayer(runId: number, intervalM: number): LineLayer {
+  const isIndex: LineLayer['filter'] = ['==', ['%', ['round', ['/', ['get', 'elevationM'], intervalM]], 5], 0];
+  return {
+    id: `contours-${runId}`,
+    type: 'line',
+    source: contoursSourceId(runId),
+    minzoom: 11,
+    paint: {
+      'line-color': TERRAIN_COLOURS.contour,
+      'line-opacity': 0.55,
+      'line-width': ['case', isIndex, 1.2, 0.6],
+    },
+  };
+}
+
+/** Heights along the contour lines, from close zoom. */
+export function contourLabelLayer(runId: number): SymbolLayer {
+  return {
+    id: `contour-labels-${runId}`,
+    type: 'symbol',
+    source: contoursSourceId(runId),
+    minzoom: 14,
+    layout: {
+      'symbol-placement': 'line',
+      'text-field': ['concat', ['to-string', ['get', 'elevationM']], ' m'],
+      'text-font': [...MAP_FONTS.regular],
+      'text-size': 10,
+      'symbol-spacing': 300,
+    },
+    paint: { 'text-color': TERRAIN_COLOURS.contour, 'text-halo-color': MAP_COLOURS.casing, 'text-halo-width': 1.5 },
+  };
+}
+
+/** Line width by Strahler order: headwater gullies thin, the main creek heavy. */
+const widthByOrder = (base: number): ExpressionSpecification => [
+  'interpolate',
+  ['linear'],
+  ['get', 'streamOrder'],
+  1,
+  base,
+  5,
+  base + 4,
+];
+
+export const drainageCasingLayer: LineLayer = {
+  id: 'drainage-casing',
+  type: 'line',
+  source: DRAINAGE_SOURCE_ID,
+  layout: { 'line-join': 'round', 'line-cap': 'round' },
+  paint: { 'line-color': TERRAIN_COLOURS.drainageCasing, 'line-width': widthByOrder(3), 'line-opacity': 0.8 },
+};
+
+export const drainageLineLayer: LineLayer = {
+  id: 'drainage-lines',
+  type: 'line',
+  source: DRAINAGE_SOURCE_ID,
+  layout: { 'line-join': 'round', 'line-cap': 'round' },
+  paint: { 'line-color': TERRAIN_COLOURS.drainage, 'line-width': widthByOrder(1.2) },
+};

@@ -1,0 +1,93 @@
+import type { Knex } from 'knex';
+import type { DrainageSegment } from '../../terrain/drainage-lines';
+import { db } from '../db';
+
+type DrainageRow = {
+  id: number;
+  property_id: number;
+  terrain_run_id: number | null;
+  geometry: string;
+  stream_order: number;
+  upstream_area_start_m2: number;
+  upstream_area_end_m2: number;
+  length_m: number;
+  mean_slope: number;
+};
+
+export type DrainageLineFeature = {
+  type: 'Feature';
+  id: number;
+  properties: {
+    id: number;
+    terrainRunId: number | null;
+    streamOrder: number;
+    upstreamAreaStartHa: number;
+    upstreamAreaEndHa: number;
+    lengthM: number;
+    meanSlope: number;
+  };
+  geometry: { type: 'LineString'; coordinates: [number, number][] };
+};
+
+/**
+ * Stores a terrain run's drainage lines and drops those of earlier runs over the same elevation
+ * model, inside the caller's transaction (a run's lines appear all at once or not at all).
+ */
+export async function replaceDrainageLines(
+  trx: Knex,
+  input: { propertyId: number; runId: number; elevationModelId: number; segments: DrainageSegment[]; wgs84: [number, number][][] },
+): Promise<void> {
+  const earlierRuns = trx('terrain_runs').select('id').where({ elevation_model_id: input.elevationModelId }).whereNot({ id: input.runId });
+  await trx('drainage_lines').whereIn('terrain_run_id', earlierRuns).delete();
+  const rows = input.segments.map((segment, index) => {
+    const line = input.wgs84[index]!;
+    const lons = line.map(([lon]) => lon);
+    const lats = line.map(([, lat]) => lat);
+    return {
+      property_id: input.propertyId,
+      terrain_run_id: input.runId,
+      geometry: JSON.stringify({ type: 'LineString', coordinates: line }),
+      geometry_crs: JSON.stringify({ type: 'LineString', coordinates: segment.coordinates }),
+      stream_order: segment.order,
+      upstream_area_start_m2: segment.upstreamAreaStartM2,
+      upstream_area_end_m2: segment.upstreamAreaEndM2,
+      length_m: segment.lengthM,
+      mean_slope: segment.meanSlope,
+      segment_index: segment.id,
+      downstream_index: segment.downstreamId,
+      min_lon: Math.min(...lons),
+      min_lat: Math.min(...lats),
+      max_lon: Math.max(...lons),
+      max_lat: Math.max(...lats),
+    };
+  });
+  // SQLite allows a limited number of bound values per statement: insert in chunks.
+  await trx.batchInsert('drainage_lines', rows, 200);
+}
+
+/** The property's drainage lines as GeoJSON features in WGS84 (RFC 7946). */
+export async function listDrainageLines(propertyId: number, trx: Knex = db()): Promise<DrainageLineFeature[]> {
+  const rows = await trx<DrainageRow>('drainage_lines')
+    .where({ property_id: propertyId })
+    .orderBy('id')
+    .select('id', 'terrain_run_id', 'geometry', 'stream_order', 'upstream_area_start_m2', 'upstream_area_end_m2', 'length_m', 'mean_slope');
+  return rows.map((row) => ({
+    type: 'Feature',
+    id: row.id,
+    properties: {
+      id: row.id,
+      terrainRunId: row.terrain_run_id,
+      streamOrder: row.stream_order,
+      upstreamAreaStartHa: round(row.upstream_area_start_m2 / 10_000, 3),
+      upstreamAreaEndHa: round(row.upstream_area_end_m2 / 10_000, 3),
+      lengthM: round(row.length_m, 1),
+      meanSlope: round(row.mean_slope, 5),
+    },
+    geometry: JSON.parse(row.geometry) as DrainageLineFeature['geometry'],
+  }));
+}
+
+function round(value: number, digits: number): number {
+  const factor = 10 ** digits;
+  return Math.round(value * factor) / factor;
+}

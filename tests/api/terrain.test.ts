@@ -1,0 +1,195 @@
+import { execFileSync } from 'node:child_process';
+import { existsSync, mkdtempSync, readdirSync, readFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import path from 'node:path';
+import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
+import { oversizedTiff } from '../helpers/elevation-fixtures';
+import { closeServerDb, rowCounts, signedInClient, type TestClient } from '../helpers/api-client';
+
+const DEMO = 'data-samples/saltbush-rise-dem.tif';
+const manifest = JSON.parse(readFileSync('data-samples/saltbush-rise.json', 'utf8')) as {
+  creeks: { name: string; centrelineLonLat: [number, number][] }[];
+};
+const work = mkdtempSync(path.join(tmpdir(), 'gullyline-terrain-api-'));
+
+/** A variant of the demo model written by GDAL (Debian gdal-bin), the reference tool for GeoTIFFs. */
+function gdalVariant(name: string, tool: string, args: string[]): Uint8Array {
+  const out = path.join(work, name);
+  execFileSync(tool, [...args, out], { stdio: 'pipe' });
+  return new Uint8Array(readFileSync(out));
+}
+
+type Run = { id: number; status: string; stage: string | null; percent: number; message: string | null; summary: { boundsWgs84: number[] } | null };
+
+let manager: TestClient;
+let propertyId = 0;
+
+async function upload(bytes: Uint8Array, query = '?name=model.tif', id = propertyId) {
+  const response = await manager.request('POST', `/api/properties/${id}/elevation-models${query}`, bytes, { 'Content-Type': 'image/tiff' });
+  return { status: response.status, body: (await response.json()) as { error?: string; fields?: Record<string, string>; run: Run; elevationModel: { id: number }; warnings: string[] } };
+}
+
+async function waitForRun(runId: number, id = propertyId): Promise<{ run: Run; seen: Set<string> }> {
+  const seen = new Set<string>();
+  for (let i = 0; i < 600; i++) {
+    const { body } = await manager.json<{ run: Run }>('GET', `/api/properties/${id}/terrain-runs/${runId}`);
+    seen.add(`${body.run.status}:${body.run.stage ?? ''}`);
+    if (!['queued', 'running'].includes(body.run.status)) return { run: body.run, seen };
+    await new Promise((resolve) => setTimeout(resolve, 50));
+  }
+  throw new Error(`run ${runId} did not finish`);
+}
+
+/** Files left in the upload area or for elevation models, to prove a refusal stores nothing. */
+function storedFiles(): string[] {
+  const dataDir = inject('dataDir');
+  return ['uploads/incoming', 'elevation-models'].flatMap((folder) => {
+    const full = path.join(dataDir, folder);
+    return existsSync(full) ? readdirSync(full, { recursive: true }).map(String) : [];
+  });
+}
+
+beforeAll(async () => {
+  const signedIn = await signedInClient('terrain-manager');
+  manager = signedIn.client;
+  const created = await manager.json<{ property: { id: number } }>('POST', '/api/properties', { name: 'Saltbush Rise (test copy)', crs: 'EPSG:7854' });
+  propertyId = created.body.property.id;
+});
+afterAll(closeServerDb);
+
+describe('terrain runs over the demo elevation model', () => {
+  let runId = 0;
+
+  it('accepts the upload, runs every stage off the request thread and succeeds', async () => {
+    const { status, body } = await upload(new Uint8Array(readFileSync(DEMO)), '?name=saltbush-rise-dem.tif');
+    expect(status).toBe(201);
+    expect(body.run.status).toBe('queued');
+    expect(body.warnings).toEqual([]);
+    runId = body.run.id;
+    const { run, seen } = await waitForRun(runId);
+    expect(run.status, run.message ?? '').toBe('succeeded');
+    expect(run.percent).toBe(100);
+    expect(seen.size).toBeGreaterThan(1);
+  });
+
+  it('yields drainage lines that follow the demo creek', async () => {
+    const { body } = await manager.json<{ type: string; features: { properties: { streamOrder: number }; geometry: { coordinates: [number, number][] } }[] }>(
+      'GET',
+      `/api/properties/${propertyId}/drainage-lines`,
+    );
+    expect(body.type).toBe('FeatureCollection');
+    expect(body.features.length).toBeGreaterThan(10);
+    // Distance in metres from each point of the main creek's constructed centreline (data-samples
+    // manifest) to the nearest drainage line, on a local plane (degrees to metres near 31.4° S).
+    const mPerDegLat = 110_900;
+    const mPerDegLon = 111_320 * Math.cos((31.44 * Math.PI) / 180);
+    const toM = ([lon, lat]: [number, number]) => [lon * mPerDegLon, lat * mPerDegLat] as const;
+    const segments = body.features.flatMap((f) => f.geometry.coordinates.slice(1).map((b, i) => [toM(f.geometry.coordinates[i]!), toM(b)] as const));
+    const distanceToLines = (point: [number, number]) => {
+      const [px, py] = toM(point);
+      return Math.min(
+        ...segments.map(([[ax, ay], [bx, by]]) => {
+          const t = Math.max(0, Math.min(1, ((px - ax) * (bx - ax) + (py - ay) * (by - ay)) / ((bx - ax) ** 2 + (by - ay) ** 2 || 1)));
+          return Math.hypot(px - (ax + t * (bx - ax)), py - (ay + t * (by - ay)));
+        }),
+      );
+    };
+    const main = manifest.creeks.find((creek) => /main/i.test(creek.name))!;
+    // From the point where the creek drains more than the 5 ha threshold (past its first tenth).
+    const downstream = main.centrelineLonLat.slice(Math.ceil(main.centrelineLonLat.length / 10));
+    const offsets = downstream.filter((_, i) => i % 5 === 0).map(distanceToLines);
+    // Within two 5 m cells, the light simplification of the traced lines included.
+    expect(Math.max(...offsets)).toBeLessThan(10);
+    expect(Math.max(...body.features.map((f) => f.properties.streamOrder))).toBeGreaterThanOrEqual(3);
+  });
+
+  it('serves the hillshade image and contour lines, and places the property on the map', async () => {
+    const png = await manager.request('GET', `/api/properties/${propertyId}/terrain-runs/${runId}/hillshade.png`);
+    expect(png.headers.get('content-type')).toBe('image/png');
+    expect([...new Uint8Array(await png.arrayBuffer()).slice(0, 4)]).toEqual([0x89, 0x50, 0x4e, 0x47]);
+    const contours = await manager.json<{ features: { properties: { elevationM: number } }[] }>('GET', `/api/properties/${propertyId}/terrain-runs/${runId}/contours.geojson`);
+    expect(contours.body.features.length).toBeGreaterThan(5);
+    const property = await manager.json<{ property: { extentWgs84: number[] } }>('GET', `/api/properties/${propertyId}`);
+    expect(property.body.property.extentWgs84[0]).toBeCloseTo(141.6313, 3);
+  });
+
+  it('warns, and still accepts, a model that lies away from the property', async () => {
+    const shifted = gdalVariant('shifted.tif', 'gdal_translate', ['-q', '-a_ullr', '660000', '6623000', '663000', '6620000', DEMO]);
+    const { status, body } = await upload(shifted);
+    expect(status).toBe(201);
+    expect(body.warnings.join(' ')).toMatch(/does not overlap the property/);
+    await waitForRun(body.run.id);
+  });
+
+  it('cancels a run that is under way', async () => {
+    const big = gdalVariant('big.tif', 'gdal_translate', ['-q', '-outsize', '400%', '400%', DEMO]);
+    const { body } = await upload(big);
+    const cancelled = await manager.json<{ run: Run }>('POST', `/api/properties/${propertyId}/terrain-runs/${body.run.id}/cancel`);
+    expect(cancelled.status).toBe(200);
+    expect(cancelled.body.run.status).toBe('cancelled');
+    const again = await manager.json<{ error: string }>('POST', `/api/properties/${propertyId}/terrain-runs/${body.run.id}/cancel`);
+    expect(again.status).toBe(409);
+    // A new run over the same model can start once this one is cancelled.
+    const rerun = await manager.json<{ run: Run }>('POST', `/api/properties/${propertyId}/terrain-runs`, { elevationModelId: body.elevationModel.id, thresholdHa: 50 });
+    expect(rerun.status).toBe(201);
+    expect((await waitForRun(rerun.body.run.id)).run.status).toBe('succeeded');
+  }, 120_000);
+});
+
+describe('bad elevation models: a clear message, and nothing stored', () => {
+  const demo = () => new Uint8Array(readFileSync(DEMO));
+  const cases: [string, () => Uint8Array, number, RegExp][] = [
+    ['bytes that are not a TIFF', () => new TextEncoder().encode('this is a plain text file, not a GeoTIFF'), 422, /not a (Geo)?TIFF/i],
+    ['a truncated TIFF', () => demo().slice(0, 5_000), 422, /truncated|cut short|incomplete/i],
+    ['an RGB image', () => gdalVariant('rgb.tif', 'gdal_translate', ['-q', '-b', '1', '-b', '1', '-b', '1', '-ot', 'Byte', '-scale', DEMO]), 422, /band/i],
+    ['an unsupported sample format', () => gdalVariant('byte.tif', 'gdal_translate', ['-q', '-ot', 'Byte', '-scale', DEMO]), 422, /8-bit|sample/i],
+    ['a header declaring 200 000 × 200 000 cells', oversizedTiff, 422, /40,000,000,000 cells/],
+    ['an empty file', () => new Uint8Array(0), 400, /empty/i],
+  ];
+
+  it.each(cases)('refuses %s', async (_label, bytes, status, message) => {
+    const before = await rowCounts('elevation_models', 'terrain_runs', 'drainage_lines');
+    const filesBefore = storedFiles();
+    const answer = await upload(bytes());
+    expect(answer.status).toBe(status);
+    expect(answer.body.error).toMatch(message);
+    expect(JSON.stringify(answer.body)).not.toMatch(/at .*\.(ts|js|mjs):\d+/);
+    expect(await rowCounts('elevation_models', 'terrain_runs', 'drainage_lines')).toEqual(before);
+    expect(storedFiles()).toEqual(filesBefore);
+  });
+
+  it('fails the run of a model that is all nodata with the reason, and deletes the model with its files on request', async () => {
+    const nodata = gdalVariant('nodata.tif', 'gdal_create', ['-q', '-outsize', '20', '20', '-ot', 'Float32', '-a_ullr', '560000', '6523000', '560100', '6522900', '-burn', '-9999', '-a_nodata', '-9999', '-a_srs', 'EPSG:7854']);
+    const before = await rowCounts('elevation_models', 'terrain_runs', 'drainage_lines');
+    const filesBefore = storedFiles();
+    // The header is fine, so the upload is taken; the heights are read by the run, off the request thread.
+    const { status, body } = await upload(nodata);
+    expect(status).toBe(201);
+    const { run } = await waitForRun(body.run.id);
+    expect(run.status).toBe('failed');
+    expect(run.message).toMatch(/nodata/i);
+    const removed = await manager.request('DELETE', `/api/properties/${propertyId}/elevation-models/${body.elevationModel.id}`);
+    expect(removed.status).toBe(204);
+    expect(await rowCounts('elevation_models', 'terrain_runs', 'drainage_lines')).toEqual(before);
+    expect(storedFiles()).toEqual(filesBefore);
+  });
+
+  it('asks for the coordinate system of a model without one, and accepts it once given', async () => {
+    const noCrs = gdalVariant('no-crs.tif', 'gdal_create', ['-q', '-outsize', '40', '40', '-ot', 'Float32', '-a_ullr', '560000', '6523000', '560200', '6522800', '-burn', '150']);
+    const before = await rowCounts('elevation_models', 'terrain_runs');
+    const refused = await upload(noCrs);
+    expect(refused.status).toBe(422);
+    expect(refused.body.fields?.crs).toMatch(/EPSG code/);
+    expect(await rowCounts('elevation_models', 'terrain_runs')).toEqual(before);
+    const accepted = await upload(noCrs, '?name=no-crs.tif&crs=EPSG:7854');
+    expect(accepted.status).toBe(201);
+    await waitForRun(accepted.body.run.id);
+  });
+
+  it('refuses a crew member and answers another property’s run with 404', async () => {
+    const other = await signedInClient('terrain-other');
+    const created = await other.client.json<{ property: { id: number } }>('POST', '/api/properties', { name: 'Other', crs: 'EPSG:7854' });
+    const response = await other.client.request('GET', `/api/properties/${created.body.property.id}/terrain-runs/1`);
+    expect(response.status).toBe(404);
+  });
+});
