@@ -12,7 +12,7 @@ export default getViteConfig({
         extends: true,
         test: {
           name: 'unit',
-          include: ['tests/lib/**/*.test.ts', 'tests/data-samples/**/*.test.ts'],
+          include: ['tests/lib/**/*.test.ts', 'tests/data-samples/**/*.test.ts', 'tests/scripts/**/*.test.ts'],
           setupFiles: ['tests/helpers/temp-data-dir.ts'],
         },
       },

@@ -1,14 +1,25 @@
 /**
- * Benchmark of the terrain conditioning pipeline (fill → flow directions → accumulation) on a
- * generated 4000 × 4000 Float32 elevation model (invented, seeded, deterministic): a tilted
- * surface with sines, value noise, rounding to 1 cm, pits, flat plateaus and nodata holes.
+ * Benchmark of the terrain chain (read → fill → flow directions → accumulation → drainage lines)
+ * on a generated 4000 × 4000 Float32 elevation model (invented, seeded, deterministic): a tilted
+ * surface with sines, value noise, rounding to 1 cm, pits, flat plateaus and nodata holes,
+ * written as a GeoTIFF and read back as an upload would be.
  *
- *   npx tsx scripts/bench-terrain.ts [size] [seed]
+ *   npm run bench:terrain -- [size] [seed]
  *
  * Prints wall time, throughput and CPU time per stage, and the peak resident set size. On a
  * shared machine, CPU time well below wall time means the benchmark was waiting for a core.
+ * Then it runs the whole chain again in a worker thread, as the server does, and measures how
+ * long the main thread's event loop is held up meanwhile (what a request would wait).
  */
+import { mkdtempSync, rmSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import path from 'node:path';
+import { monitorEventLoopDelay, performance as perf } from 'node:perf_hooks';
 import { resourceUsage } from 'node:process';
+import { readElevationModel } from '../src/lib/server/elevation/read-elevation-model';
+import { encodeGeoTiff } from '../src/lib/server/elevation/write-geotiff';
+import { createTerrainWorker } from '../src/lib/server/jobs/terrain-jobs';
+import { traceDrainageLines } from '../src/lib/terrain/drainage-lines';
 import {
   accumulateFlow,
   computeFlowDirections,
@@ -99,10 +110,10 @@ function generateModel(width: number, height: number, seedValue: number): Elevat
   return { width, height, data, ...uniformCellSize(width, height, 5) };
 }
 
-function time<T>(label: string, cells: number, run: () => T): T {
+async function time<T>(label: string, cells: number, run: () => T | Promise<T>): Promise<T> {
   const start = performance.now();
   const cpuStart = process.cpuUsage();
-  const result = run();
+  const result = await run();
   const seconds = (performance.now() - start) / 1000;
   const cpu = process.cpuUsage(cpuStart);
   console.log(
@@ -113,20 +124,30 @@ function time<T>(label: string, cells: number, run: () => T): T {
 }
 
 const generateStart = performance.now();
-const grid = generateModel(size, size, seed);
 const cellCount = size * size;
+const work = mkdtempSync(path.join(tmpdir(), 'gullyline-bench-'));
+const file = path.join(work, 'model.tif');
+const transform = { originX: 500_000, originY: 6_500_000, cellSizeX: 5, cellSizeY: 5 };
+// In a function so the generated heights can be collected before the chain is measured.
+(function writeModel() {
+  const generated = generateModel(size, size, seed);
+  const heights = Float32Array.from(generated.data, (z) => (Number.isNaN(z) ? -9999 : z));
+  writeFileSync(file, encodeGeoTiff(heights, { width: size, height: size, transform, epsg: 7854, geographic: false, nodata: -9999 }));
+})();
 console.log(
   `model ${size} × ${size} (${(cellCount / 1e6).toFixed(1)} M cells), seed ${seed}, ` +
-    `generated in ${((performance.now() - generateStart) / 1000).toFixed(2)} s`,
+    `generated and written as a GeoTIFF in ${((performance.now() - generateStart) / 1000).toFixed(2)} s`,
 );
 const pipelineStart = performance.now();
-const filled = time('fill', cellCount, () => fillDepressions(grid));
-const directions = time('flow directions', cellCount, () => computeFlowDirections(filled, grid));
-const accumulation = time('accumulation', cellCount, () => accumulateFlow(directions, grid));
+const { grid } = await time('read', cellCount, () => readElevationModel(file));
+const filled = await time('fill', cellCount, () => fillDepressions(grid));
+const directions = await time('flow directions', cellCount, () => computeFlowDirections(filled, grid));
+const accumulation = await time('accumulation', cellCount, () => accumulateFlow(directions, grid));
+const drainage = await time('drainage lines', cellCount, () => traceDrainageLines(grid, filled, directions, accumulation, transform, { thresholdHa: 5 }));
 const totalSeconds = (performance.now() - pipelineStart) / 1000;
 console.log(
   `${'total'.padEnd(16)} ${totalSeconds.toFixed(2).padStart(7)} s  ` +
-    `${(cellCount / totalSeconds / 1e6).toFixed(2).padStart(7)} Mcells/s`,
+    `${(cellCount / totalSeconds / 1e6).toFixed(2).padStart(7)} Mcells/s  (${drainage.length} drainage lines at 5 ha)`,
 );
 
 let valid = 0;
@@ -145,3 +166,23 @@ console.log(
     `largest catchment ${largest} cells (${(largest * 25 / 1e6).toFixed(2)} km²)`,
 );
 console.log(`peak RSS ${(resourceUsage().maxRSS / 1024).toFixed(0)} MB`);
+
+// The same chain as the server runs it: in a worker thread, with the main thread free.
+const delay = monitorEventLoopDelay({ resolution: 5 });
+delay.enable();
+const workerStart = perf.now();
+await new Promise<void>((resolve, reject) => {
+  const worker = createTerrainWorker({ file, outDir: path.join(work, 'run'), thresholdHa: 5, maxCells: 64_000_000 });
+  worker.on('message', (message: { type: string; message?: string }) => {
+    if (message.type === 'done') void worker.terminate().then(() => resolve());
+    if (message.type === 'failed') reject(new Error(message.message));
+  });
+  worker.on('error', reject);
+});
+delay.disable();
+console.log(
+  `worker run with map products ${((perf.now() - workerStart) / 1000).toFixed(2)} s; main-thread event loop delay ` +
+    `p50 ${(delay.percentile(50) / 1e6).toFixed(1)} ms, p99 ${(delay.percentile(99) / 1e6).toFixed(1)} ms, max ${(delay.max / 1e6).toFixed(1)} ms`,
+);
+console.log(`peak RSS after the worker run ${(resourceUsage().maxRSS / 1024).toFixed(0)} MB`);
+rmSync(work, { recursive: true, force: true });

@@ -1,5 +1,6 @@
 import { existsSync } from 'node:fs';
 import path from 'node:path';
+import { pathToFileURL } from 'node:url';
 import { Worker } from 'node:worker_threads';
 import { db } from '../db';
 import { getConfig } from '../config';
@@ -70,8 +71,7 @@ async function startNext(): Promise<void> {
     maxCells: getConfig().maxRasterCells,
   };
   await updateTerrainRun(runId, { status: 'running', stage: 'read', percent: 0, startedAt: new Date().toISOString() });
-  const [script, extra] = workerScript();
-  const worker = new Worker(script, { ...extra, workerData: input });
+  const worker = createTerrainWorker(input);
   active = { runId, worker };
   let settled = false;
   const finish = async (work: () => Promise<void>) => {
@@ -147,11 +147,13 @@ async function recordFailure(runId: number, message: string): Promise<void> {
 }
 
 /**
- * The worker's script: the bundle `npm run build` writes beside the server, or the TypeScript
- * source through tsx when running from source (vitest, dev).
+ * Starts a terrain worker: the bundle `npm run build` writes beside the server, or, running from
+ * source (vitest, dev, benchmarks), the TypeScript module loaded through tsx's loader.
  */
-function workerScript(): [string, { execArgv?: string[] }] {
+export function createTerrainWorker(input: TerrainRunInput): Worker {
   const built = path.resolve(path.dirname(process.argv[1] ?? '.'), '../workers/terrain-worker.mjs');
-  if (import.meta.env?.PROD && existsSync(built)) return [built, {}];
-  return [path.resolve('src/lib/server/jobs/terrain-worker.ts'), { execArgv: ['--import', 'tsx'] }];
+  if (import.meta.env?.PROD && existsSync(built)) return new Worker(built, { workerData: input });
+  const source = pathToFileURL(path.resolve('src/lib/server/jobs/terrain-worker.ts')).href;
+  const bootstrap = `import('tsx/esm/api').then(({ register }) => { register(); return import(${JSON.stringify(source)}); });`;
+  return new Worker(bootstrap, { eval: true, workerData: input });
 }
