@@ -16,7 +16,7 @@ export class TestClient {
   async request(method: string, route: string, body?: unknown, headers: Record<string, string> = {}): Promise<Response> {
     const init: RequestInit = { method, redirect: 'manual', headers: { Origin: this.origin, ...this.cookieHeader(), ...headers } };
     if (body !== undefined) {
-      init.body = typeof body === 'string' || body instanceof Uint8Array ? body : JSON.stringify(body);
+      init.body = typeof body === 'string' ? body : body instanceof Uint8Array ? new Uint8Array(body) : JSON.stringify(body);
       (init.headers as Record<string, string>)['Content-Type'] ??= 'application/json';
     }
     const response = await fetch(this.baseUrl + route, init);
