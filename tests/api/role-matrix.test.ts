@@ -14,6 +14,8 @@ type Entry = {
   body?: (context: Context) => Promise<unknown> | unknown;
   /** A file body instead of JSON. */
   file?: { bytes: Uint8Array; type: string; query: string };
+  /** A query string for the route. */
+  query?: string;
   /** Sets up what one request needs (e.g. a run that is still queued) and overrides route parameters. */
   prepare?: (context: Context) => Promise<Partial<Context>>;
 };
@@ -87,6 +89,8 @@ const MATRIX: Record<string, Entry> = {
   'PATCH /api/properties/[id]/members/[userId]': { expect: atLeast('owner', 200), body: () => ({ role: 'viewer' }) },
   'DELETE /api/properties/[id]/members/[userId]': { expect: atLeast('owner', 204) },
   'GET /api/properties/[id]/drainage-lines': { expect: atLeast('viewer', 200) },
+  'GET /api/properties/[id]/catchment': { expect: atLeast('viewer', 200), query: '?lon=141.6455&lat=-31.4395&snapM=40' },
+  'POST /api/properties/[id]/profile': { expect: atLeast('viewer', 200), body: () => ({ line: [[141.64, -31.44], [141.65, -31.44]] }) },
   'GET /api/properties/[id]/elevation-models': { expect: atLeast('viewer', 200) },
   'POST /api/properties/[id]/elevation-models': {
     expect: atLeast('manager', 201),
@@ -185,7 +189,7 @@ describe('role matrix', () => {
       const requestMethod = method === 'ALL' ? 'GET' : method;
       const response = entry.file
         ? await clients[caller].request(requestMethod, fill(route, here) + entry.file.query, entry.file.bytes, { 'Content-Type': entry.file.type })
-        : await clients[caller].request(requestMethod, fill(route, here), entry.body ? await entry.body(here) : undefined);
+        : await clients[caller].request(requestMethod, fill(route, here) + (entry.query ?? ''), entry.body ? await entry.body(here) : undefined);
       expect(response.status).toBe(expected);
       if (response.status >= 400) {
         const answer = (await response.json()) as { error?: string };

@@ -3,12 +3,14 @@ import { existsSync, mkdtempSync, readdirSync, readFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import path from 'node:path';
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
+import geodesic from 'geographiclib-geodesic';
 import { oversizedTiff } from '../helpers/elevation-fixtures';
 import { closeServerDb, rowCounts, signedInClient, type TestClient } from '../helpers/api-client';
 
 const DEMO = 'data-samples/saltbush-rise-dem.tif';
 const manifest = JSON.parse(readFileSync('data-samples/saltbush-rise.json', 'utf8')) as {
   creeks: { name: string; centrelineLonLat: [number, number][] }[];
+  fenceLines: { name: string; pointsLonLat: [number, number][]; crossing: { pointLonLat: [number, number] } }[];
 };
 const work = mkdtempSync(path.join(tmpdir(), 'gullyline-terrain-api-'));
 
@@ -111,6 +113,46 @@ describe('terrain runs over the demo elevation model', () => {
     expect(contours.body.features.length).toBeGreaterThan(5);
     const property = await manager.json<{ property: { extentWgs84: number[] } }>('GET', `/api/properties/${propertyId}`);
     expect(property.body.property.extentWgs84[0]).toBeCloseTo(141.6313, 3);
+  });
+
+  it('delineates the catchment of a crossing: larger downstream, the outlet on the creek', async () => {
+    type Catchment = { areaHa: number; longestFlowPathM: number; equalAreaSlope: number; outlet: [number, number]; polygon: { coordinates: number[][][][] } };
+    const at = async (lonLat: [number, number]) =>
+      (await manager.json<{ catchment: Catchment }>('GET', `/api/properties/${propertyId}/catchment?lon=${lonLat[0]}&lat=${lonLat[1]}&snapM=30`)).body.catchment;
+    const north = await at(manifest.fenceLines.find((f) => f.name === 'North cross fence')!.crossing.pointLonLat);
+    const south = await at(manifest.fenceLines.find((f) => f.name === 'South cross fence')!.crossing.pointLonLat);
+    expect(north.areaHa).toBeGreaterThan(5);
+    expect(south.areaHa).toBeGreaterThan(north.areaHa);
+    expect(south.longestFlowPathM).toBeGreaterThan(north.longestFlowPathM);
+    // The plain falls about 2.2 m per km (data-samples manifest): the equal-area slope is of that order.
+    expect(south.equalAreaSlope).toBeGreaterThan(0.0005);
+    expect(south.equalAreaSlope).toBeLessThan(0.02);
+    expect(south.polygon.coordinates.length).toBeGreaterThan(0);
+    const outside = await manager.json<{ error: string }>('GET', `/api/properties/${propertyId}/catchment?lon=140&lat=-30`);
+    expect(outside.status).toBe(404);
+    expect(outside.body.error).toMatch(/No processed elevation model covers this place/);
+  });
+
+  it('samples the ground profile along a fence line, its length agreeing with GeographicLib within 0.1 %', async () => {
+    const fence = manifest.fenceLines.find((f) => f.name === 'North cross fence')!.pointsLonLat;
+    const { status, body } = await manager.json<{ profile: { lengthM: number; samples: { chainageM: number; elevationM: number | null }[] } }>(
+      'POST',
+      `/api/properties/${propertyId}/profile`,
+      { line: fence },
+    );
+    expect(status).toBe(200);
+    // Geodesic length on WGS84 (GeographicLib, Karney 2013, J. Geodesy 87:43–55).
+    let geodesicM = 0;
+    for (let i = 1; i < fence.length; i++) {
+      geodesicM += geodesic.Geodesic.WGS84.Inverse(fence[i - 1]![1], fence[i - 1]![0], fence[i]![1], fence[i]![0]).s12!;
+    }
+    expect(Math.abs(body.profile.lengthM - geodesicM) / geodesicM).toBeLessThan(0.001);
+    const heights = body.profile.samples.map((s) => s.elevationM).filter((z): z is number => z !== null);
+    // The fence dips into the creek it crosses: its lowest ground lies well below its highest.
+    expect(Math.max(...heights) - Math.min(...heights)).toBeGreaterThan(2);
+    const bad = await manager.json<{ fields: Record<string, string> }>('POST', `/api/properties/${propertyId}/profile`, { line: [[141.64, -31.44]] });
+    expect(bad.status).toBe(422);
+    expect(bad.body.fields.line).toMatch(/at least two points/);
   });
 
   it('warns, and still accepts, a model that lies away from the property', async () => {

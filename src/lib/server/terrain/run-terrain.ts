@@ -32,7 +32,7 @@ export interface TerrainRunInput {
   readonly thresholdHa?: number;
   readonly assumeCrs?: string;
   readonly maxCells?: number;
-  /** Whether to write the CLI's analysis rasters (filled, flow directions, accumulation, hillshade) as GeoTIFFs. */
+  /** Whether to write the CLI's extra rasters (accumulation, hillshade) as GeoTIFFs; filled and flowdir are always written. */
   readonly writeRasters?: boolean;
 }
 
@@ -103,10 +103,11 @@ export async function runTerrain(input: TerrainRunInput, report: ProgressReport 
     await writeFile(path.join(input.outDir, 'contours.geojson'), JSON.stringify(contoursToGeoJson(levels, transform, toWgs84)));
     progress(0.7);
     await writeFile(path.join(input.outDir, 'drainage.geojson'), JSON.stringify(drainageToGeoJson(drainage, crs.code)));
+    // The conditioned surface and the directions are kept for catchment queries after the run.
+    const nanTo = (values: Float64Array) => Float32Array.from(values, (z) => (Number.isNaN(z) ? -9999 : z));
+    await writeFile(path.join(input.outDir, 'filled.tif'), encodeGeoTiff(nanTo(filled), { ...tiff, nodata: -9999 }));
+    await writeFile(path.join(input.outDir, 'flowdir.tif'), encodeGeoTiff(directions, { ...tiff, nodata: 255, description: 'D8: 0 E, 1 SE, 2 S, 3 SW, 4 W, 5 NW, 6 N, 7 NE; 255 outlet or nodata' }));
     if (input.writeRasters) {
-      const nanTo = (values: Float64Array) => Float32Array.from(values, (z) => (Number.isNaN(z) ? -9999 : z));
-      await writeFile(path.join(input.outDir, 'filled.tif'), encodeGeoTiff(nanTo(filled), { ...tiff, nodata: -9999 }));
-      await writeFile(path.join(input.outDir, 'flowdir.tif'), encodeGeoTiff(directions, { ...tiff, nodata: 255, description: 'D8: 0 E, 1 SE, 2 S, 3 SW, 4 W, 5 NW, 6 N, 7 NE; 255 outlet or nodata' }));
       await writeFile(path.join(input.outDir, 'accumulation.tif'), encodeGeoTiff(accumulation.cells, { ...tiff, nodata: 0, description: 'Upstream cells, the cell itself included' }));
       await writeFile(path.join(input.outDir, 'hillshade.tif'), encodeGeoTiff(hillshade, { ...tiff, nodata: 0 }));
     }

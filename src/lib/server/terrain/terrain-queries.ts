@@ -1,0 +1,76 @@
+import { createFromWgs84, createToWgs84, roundLonLat } from '../../geo/reproject';
+import { delineateCatchment } from '../../terrain/catchment';
+import { sampleProfile } from '../../terrain/profile';
+import { db } from '../db';
+import { NotFoundError } from '../http';
+import { loadRunRasters, loadSourceModel } from './run-rasters';
+
+type Covering = { modelId: number; runId: number; crs: string; storedFile: string; cellSizeM: number };
+
+/**
+ * The elevation model to use at a point: of the property's models with a finished run whose
+ * extent holds the point, the finest (smallest cells) wins.
+ * @throws NotFoundError when no model covers the point
+ */
+export async function modelCovering(propertyId: number, [lon, lat]: [number, number]): Promise<Covering> {
+  const rows = await db()('elevation_models as m')
+    .join('terrain_runs as r', 'r.elevation_model_id', 'm.id')
+    .where({ 'm.property_id': propertyId, 'r.status': 'succeeded' })
+    .andWhere('m.extent_west', '<=', lon)
+    .andWhere('m.extent_east', '>=', lon)
+    .andWhere('m.extent_south', '<=', lat)
+    .andWhere('m.extent_north', '>=', lat)
+    .orderBy([{ column: 'm.cell_size_m', order: 'asc' }, { column: 'r.id', order: 'desc' }])
+    .select('m.id as modelId', 'r.id as runId', 'm.crs as crs', 'm.stored_file as storedFile', 'm.cell_size_m as cellSizeM');
+  const [finest] = rows as Covering[];
+  if (!finest) throw new NotFoundError('elevation model', 'No processed elevation model covers this place. Upload one that does, and let its terrain run finish.');
+  return finest;
+}
+
+/** The catchment draining to a point (snapped to the channel within `snapM`), in WGS84, with the figures flood formulas need. */
+export async function catchmentAt(propertyId: number, lonLat: [number, number], snapM: number) {
+  const covering = await modelCovering(propertyId, lonLat);
+  const rasters = await loadRunRasters(covering.runId, covering.crs);
+  const toWgs84 = createToWgs84(rasters.crs.proj4);
+  const point = createFromWgs84(rasters.crs.proj4)(lonLat);
+  const catchment = delineateCatchment(rasters.grid, rasters.filled, rasters.directions, rasters.accumulation, rasters.transform, point, snapM);
+  if (!catchment) throw new NotFoundError('catchment', 'This place lies outside the elevation model or on nodata.');
+  return {
+    elevationModelId: covering.modelId,
+    terrainRunId: covering.runId,
+    outlet: roundLonLat(toWgs84([catchment.outlet.x, catchment.outlet.y])),
+    outletElevationM: catchment.outlet.elevationM,
+    areaM2: catchment.areaM2,
+    areaHa: catchment.areaM2 / 10_000,
+    areaKm2: catchment.areaM2 / 1_000_000,
+    longestFlowPathM: catchment.longestFlowPathM,
+    equalAreaSlope: catchment.equalAreaSlope,
+    equalAreaSlopeMPerKm: catchment.equalAreaSlope * 1000,
+    method: 'D8 upslope cells of the snapped outlet; equal-area slope of the longest flow path (ARR 1987 Book IV)',
+    polygon: { type: 'MultiPolygon' as const, coordinates: catchment.polygon.map((poly) => poly.map((ring) => ring.map((xy) => roundLonLat(toWgs84(xy))))) },
+    longestFlowPath: { type: 'LineString' as const, coordinates: catchment.longestFlowPath.map((xy) => roundLonLat(toWgs84(xy))) },
+  };
+}
+
+/**
+ * Ground heights along a line given in WGS84, from the finest model covering its midpoint,
+ * sampled by bilinear interpolation (default half a cell apart); gaps where the line leaves the
+ * model or meets nodata. Chainage is along the line in the model's projected metres.
+ */
+export async function profileAlong(propertyId: number, line: [number, number][], spacingM?: number) {
+  const middle = line[Math.floor(line.length / 2)]!;
+  const covering = await modelCovering(propertyId, middle);
+  const model = await loadSourceModel(covering.storedFile, covering.crs);
+  const toModel = createFromWgs84(model.crs.proj4);
+  const toWgs84 = createToWgs84(model.crs.proj4);
+  const profile = sampleProfile(model.grid, model.transform, line.map(toModel), spacingM === undefined ? {} : { spacingM });
+  return {
+    elevationModelId: covering.modelId,
+    lengthM: profile.lengthM,
+    samples: profile.samples.map((sample) => ({
+      chainageM: sample.chainageM,
+      position: roundLonLat(toWgs84([sample.x, sample.y])),
+      elevationM: sample.elevationM,
+    })),
+  };
+}
