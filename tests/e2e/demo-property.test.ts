@@ -42,6 +42,49 @@ describe('the demo property', () => {
     await context.close();
   });
 
+  it('takes the demo elevation model through the upload form with a progress bar, then draws drainage lines over hillshade and contours', async () => {
+    const manager = DEMO_ACCOUNTS.find((account) => account.role === 'manager')!;
+    const { context, outsideRequests } = await appContext(browser);
+    const page = await context.newPage();
+    await signInThroughPage(page, manager.email, DEMO_PASSWORD);
+    await page.waitForURL('**/app');
+    await page.getByRole('link', { name: /Saltbush Rise/ }).click();
+    await waitForMap(page);
+    await page.getByLabel('Elevation model (GeoTIFF)').setInputFiles('data-samples/saltbush-rise-dem.tif');
+    await page.getByRole('button', { name: 'Upload and find drainage lines' }).click();
+    // The bar shows the upload and then each stage of the terrain run.
+    const bar = page.getByRole('progressbar');
+    await bar.waitFor({ timeout: 10_000 });
+    const labels = new Set<string>();
+    while (await bar.count()) {
+      labels.add((await bar.getAttribute('aria-label').catch(() => null)) ?? '');
+      await page.waitForTimeout(50);
+    }
+    expect([...labels].filter(Boolean).length).toBeGreaterThan(0);
+    await page.getByTestId('terrain-run-done').waitFor({ timeout: 30_000 });
+    await waitForMap(page);
+    await page.waitForFunction(() => (window.__gullylineMap!.queryRenderedFeatures({ layers: ['drainage-lines'] }).length ?? 0) > 10, undefined, { timeout: 15_000 });
+    const layers = await page.evaluate(() => window.__gullylineMap!.getStyle().layers.map((layer) => layer.id));
+    expect(layers.some((id) => id.startsWith('hillshade-'))).toBe(true);
+    expect(layers.some((id) => id.startsWith('contours-'))).toBe(true);
+    await screenshot(page, 'demo-terrain-done');
+    expect(outsideRequests).toEqual([]);
+    await context.close();
+  });
+
+  it('shows a viewer the terrain but no upload form', async () => {
+    const viewer = DEMO_ACCOUNTS.find((account) => account.role === 'viewer')!;
+    const { context } = await appContext(browser);
+    const page = await context.newPage();
+    await signInThroughPage(page, viewer.email, DEMO_PASSWORD);
+    await page.waitForURL('**/app');
+    await page.getByRole('link', { name: /Saltbush Rise/ }).click();
+    await page.getByTestId('terrain-panel').waitFor();
+    expect(await page.getByLabel('Elevation model (GeoTIFF)').count()).toBe(0);
+    expect(await page.getByRole('button', { name: /Run again|Cancel run/ }).count()).toBe(0);
+    await context.close();
+  });
+
   it('lets every demo account sign in', async () => {
     for (const account of DEMO_ACCOUNTS) {
       const { context } = await appContext(browser);

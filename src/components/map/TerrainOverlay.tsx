@@ -19,10 +19,18 @@ type Props = {
   runs: TerrainRunLayer[];
   drainage: FeatureCollection | null;
   visible: TerrainVisibility;
+  /** Whether the property's extent is drawn: terrain then goes under its outline and name. */
+  underExtent: boolean;
 };
 
+// Layer ids of the property extent (layers.ts) that the terrain is slid beneath.
+const EXTENT_FILL = 'property-extent-fill';
+const EXTENT_LABEL = 'property-extent-label';
+
 /** Hillshade and contours of each finished terrain run, and the property's drainage lines. */
-export default function TerrainOverlay({ propertyId, runs, drainage, visible }: Props) {
+export default function TerrainOverlay({ propertyId, runs, drainage, visible, underExtent }: Props) {
+  const belowExtent = underExtent ? EXTENT_FILL : undefined;
+  const belowName = underExtent ? EXTENT_LABEL : undefined;
   const base = `/api/properties/${propertyId}/terrain-runs`;
   return (
     <>
@@ -35,20 +43,20 @@ export default function TerrainOverlay({ propertyId, runs, drainage, visible }: 
             url={`${base}/${run.id}/hillshade.png`}
             coordinates={run.cornersWgs84 as [[number, number], [number, number], [number, number], [number, number]]}
           >
-            <Layer {...hillshadeLayer(run.id)} />
+            <Layer {...hillshadeLayer(run.id)} beforeId={belowExtent} />
           </Source>
         ))}
       {visible.contours &&
         runs.map((run) => (
           <Source key={`c${run.id}`} id={contoursSourceId(run.id)} type="geojson" data={`${base}/${run.id}/contours.geojson`}>
-            <Layer {...contourLineLayer(run.id, run.contourIntervalM)} />
-            <Layer {...contourLabelLayer(run.id)} />
+            <Layer {...contourLineLayer(run.id, run.contourIntervalM)} beforeId={belowExtent} />
+            <Layer {...contourLabelLayer(run.id)} beforeId={belowExtent} />
           </Source>
         ))}
       {visible.drainage && drainage && (
         <Source id={DRAINAGE_SOURCE_ID} type="geojson" data={drainage}>
-          <Layer {...drainageCasingLayer} />
-          <Layer {...drainageLineLayer} />
+          <Layer {...drainageCasingLayer} beforeId={belowName} />
+          <Layer {...drainageLineLayer} beforeId={belowName} />
         </Source>
       )}
     </>

@@ -1,5 +1,5 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
-import { useState } from 'react';
+import { useRef, useState } from 'react';
 import { ApiError, api, uploadElevationModel } from '../../lib/client/api';
 import type { ElevationModelView, TerrainRun } from '../../lib/schemas/terrain';
 import ProgressBar from './ProgressBar';
@@ -18,6 +18,7 @@ export default function TerrainPanel({ propertyId, canEdit, models, loading }: P
   const [askCrs, setAskCrs] = useState(false);
   const [uploaded, setUploaded] = useState<number | null>(null);
   const [warnings, setWarnings] = useState<string[]>([]);
+  const formRef = useRef<HTMLFormElement>(null);
 
   const upload = useMutation({
     mutationFn: (progress: (fraction: number) => void) =>
@@ -25,6 +26,8 @@ export default function TerrainPanel({ propertyId, canEdit, models, loading }: P
     onSuccess: (result) => {
       setWarnings(result.warnings);
       setFile(null);
+      formRef.current?.reset();
+      setThresholdHa(String(result.run.thresholdHa));
       setAskCrs(false);
       void refresh();
     },
@@ -87,6 +90,7 @@ export default function TerrainPanel({ propertyId, canEdit, models, loading }: P
 
       {canEdit && (
         <form
+          ref={formRef}
           className="mt-4 flex flex-col gap-3 border-t border-sand-200 pt-3"
           aria-label="Upload an elevation model"
           onSubmit={(event) => {

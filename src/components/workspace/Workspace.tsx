@@ -54,7 +54,7 @@ function Workspace({ propertyId, propertyName, extentWgs84, canEdit, children }:
     <div className="flex min-h-0 flex-1 flex-col md:flex-row">
       <section className="relative min-h-[55vh] flex-1 md:min-h-0" aria-label="Map of the property">
         <PropertyMap propertyName={propertyName} extentWgs84={extent}>
-          <TerrainOverlay propertyId={propertyId} runs={runs} drainage={drainage.data ?? null} visible={visible} />
+          <TerrainOverlay propertyId={propertyId} runs={runs} drainage={drainage.data ?? null} visible={visible} underExtent={extent !== null} />
         </PropertyMap>
         {runs.length > 0 && <LayerToggles visible={visible} onChange={setVisible} />}
       </section>

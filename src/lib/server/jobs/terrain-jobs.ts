@@ -6,7 +6,7 @@ import { db } from '../db';
 import { getConfig } from '../config';
 import { recordAudit } from '../repos/audit-log';
 import { replaceDrainageLines } from '../repos/drainage-lines';
-import { findRunById, getElevationModelFile, listRunsWithStatus, updateTerrainRun } from '../repos/terrain';
+import { findRunById, getElevationModelFile, listRunsWithStatus, updateRunProgress, updateTerrainRun } from '../repos/terrain';
 import { dataPath, removeQuietly, terrainRunFolder } from '../storage';
 import type { TerrainRunInput } from '../terrain/run-terrain';
 import type { WorkerMessage } from './terrain-worker';
@@ -17,6 +17,8 @@ import type { WorkerMessage } from './terrain-worker';
  */
 const queue: number[] = [];
 let active: { runId: number; worker: Worker } | undefined;
+// Set from the moment a run is taken from the queue, so two callers never start two workers.
+let starting = false;
 
 /** Adds a queued run to the line and starts it when the worker is free. */
 export function enqueueTerrainRun(runId: number): void {
@@ -53,15 +55,28 @@ export async function recoverTerrainRuns(): Promise<void> {
 
 /** Waits until no run is queued or running in this process (tests and the CLI). */
 export async function whenTerrainIdle(): Promise<void> {
-  while (active || queue.length > 0) await new Promise((resolve) => setTimeout(resolve, 50));
+  while (active || starting || queue.length > 0) await new Promise((resolve) => setTimeout(resolve, 50));
 }
 
 async function startNext(): Promise<void> {
-  if (active) return;
+  if (active || starting) return;
   const runId = queue.shift();
   if (runId === undefined) return;
+  starting = true;
+  try {
+    await startRun(runId);
+  } catch (error) {
+    console.error(`[gullyline] terrain run ${runId} could not start:`, error);
+    await recordFailure(runId, 'The terrain run could not start. Try again; if it fails again, tell us.').catch(() => undefined);
+  } finally {
+    starting = false;
+  }
+  if (!active) void startNext();
+}
+
+async function startRun(runId: number): Promise<void> {
   const run = await findRunById(runId);
-  if (!run || run.status !== 'queued') return startNext();
+  if (!run || run.status !== 'queued') return;
   const model = await getElevationModelFile(run.propertyId, run.elevationModelId);
   const input: TerrainRunInput = {
     file: dataPath(model.storedFile),
@@ -88,7 +103,7 @@ async function startNext(): Promise<void> {
   };
   worker.on('message', (message: WorkerMessage) => {
     if (message.type === 'progress') {
-      void updateTerrainRun(runId, { stage: message.stage, percent: message.percent }).catch(() => undefined);
+      void updateRunProgress(runId, message.stage, message.percent).catch(() => undefined);
     } else if (message.type === 'done') {
       void finish(() => recordSuccess(run.propertyId, runId, run.elevationModelId, message.summary));
       void worker.terminate();

@@ -176,3 +176,8 @@ export async function listRunsWithStatus(statuses: TerrainRunStatus[], trx: Knex
   const rows = await trx<RunRow>('terrain_runs').whereIn('status', statuses).orderBy('id');
   return rows.map((row) => ({ ...rowToRun(row), propertyId: row.property_id }));
 }
+
+/** Progress of a running run; ignored once the run has finished or been cancelled. */
+export async function updateRunProgress(runId: number, stage: string, percent: number, trx: Knex = db()): Promise<void> {
+  await trx('terrain_runs').where({ id: runId, status: 'running' }).update({ stage, percent });
+}
