@@ -1,6 +1,13 @@
 // Loads the invented demo property "Saltbush Rise" (data-samples/) with one account per role.
 // Safe to run again: existing demo accounts and the property are left as they are.
-import { readFileSync } from 'node:fs';
+import { copyFileSync, mkdirSync, readFileSync, statSync } from 'node:fs';
+import path from 'node:path';
+import { importLines } from '../src/lib/geo/import-lines';
+import { fenceLineInputSchema } from '../src/lib/schemas/plan';
+import { createFenceLine } from '../src/lib/server/repos/fence-lines';
+import { storeImportedFile } from '../src/lib/server/repos/tracks';
+import { dataPath } from '../src/lib/server/storage';
+import { registerElevationModel } from '../src/lib/server/terrain/accept-elevation-model';
 import { db } from '../src/lib/server/db';
 import { hashPassword } from '../src/lib/server/passwords';
 import { addMember } from '../src/lib/server/repos/memberships';
@@ -8,7 +15,13 @@ import { createProperty } from '../src/lib/server/repos/properties';
 import { createUser, findCredentials } from '../src/lib/server/repos/users';
 import { DEMO_ACCOUNTS, DEMO_PASSWORD } from './demo-accounts';
 
-type Manifest = { name: string; region: string; crs: string; extent: { wgs84: [number, number, number, number] } };
+type Manifest = {
+  name: string;
+  region: string;
+  crs: string;
+  extent: { wgs84: [number, number, number, number] };
+  files: Record<string, string>;
+};
 
 export async function seedDemo(): Promise<void> {
   const manifest = JSON.parse(readFileSync('data-samples/saltbush-rise.json', 'utf8')) as Manifest;
@@ -34,5 +47,25 @@ export async function seedDemo(): Promise<void> {
   for (const [index, account] of DEMO_ACCOUNTS.entries()) {
     if (account.role !== 'owner') await addMember(property.id, ids[index]!, account.role, ownerId);
   }
+  const managerId = ids[DEMO_ACCOUNTS.findIndex((account) => account.role === 'manager')]!;
+  await loadSampleFiles(property.id, managerId);
   console.log(`Loaded the demo property "${manifest.name}" (id ${property.id}) with ${DEMO_ACCOUNTS.length} demo accounts.`);
+  console.log('Its elevation model is queued: the server runs the terrain when it starts.');
+}
+
+/** The invented survey of the demo property: GPS tracks, the planned subdivision, the elevation model. */
+async function loadSampleFiles(propertyId: number, managerId: number): Promise<void> {
+  for (const file of ['saltbush-rise-old-boundary.gpx', 'saltbush-rise-creek.gpx']) {
+    await storeImportedFile(propertyId, file, importLines(readFileSync(`data-samples/${file}`, 'utf8')), managerId);
+  }
+  const subdivision = importLines(readFileSync('data-samples/saltbush-rise-subdivision.kml', 'utf8'));
+  for (const line of subdivision.lines) {
+    await createFenceLine(propertyId, fenceLineInputSchema.parse({ name: line.name, coordinates: line.coordinates }), managerId);
+  }
+  await storeImportedFile(propertyId, 'saltbush-rise-subdivision.kml', { ...subdivision, lines: [] }, managerId);
+  const source = 'data-samples/saltbush-rise-dem.tif';
+  const tempFile = dataPath('uploads/incoming/demo-seed.part');
+  mkdirSync(path.dirname(tempFile), { recursive: true });
+  copyFileSync(source, tempFile);
+  await registerElevationModel({ propertyId, userId: managerId, name: path.basename(source), tempFile, sizeBytes: statSync(source).size });
 }

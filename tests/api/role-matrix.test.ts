@@ -8,7 +8,7 @@ import { TestClient, closeServerDb, newAccount, serverDb, signedInClient } from 
 
 const CALLERS = ['anonymous', 'outsider', 'viewer', 'crew', 'manager', 'owner'] as const;
 type Caller = (typeof CALLERS)[number];
-type Context = { propertyId: number; targetUserId: number; elevationModelId: number; runId: number; modelId?: number };
+type Context = { propertyId: number; targetUserId: number; elevationModelId: number; runId: number; modelId?: number; fenceId?: number; trackId?: number };
 type Entry = {
   expect: Record<Caller, number>;
   body?: (context: Context) => Promise<unknown> | unknown;
@@ -40,6 +40,33 @@ async function spareModel(context: Context): Promise<Partial<Context>> {
     })
     .returning('id');
   return { modelId: row.id };
+}
+
+const FENCE = { name: 'Matrix fence', coordinates: [[141.64, -31.44], [141.65, -31.44]] };
+const KML_FILE = new TextEncoder().encode(
+  '<kml xmlns="http://www.opengis.net/kml/2.2"><Placemark><name>Old fence</name><LineString><coordinates>141.64,-31.44 141.65,-31.45</coordinates></LineString></Placemark></kml>',
+);
+
+/** A fence line of its own for a change or a delete to act on. */
+async function spareFence(context: Context): Promise<Partial<Context>> {
+  const now = new Date().toISOString();
+  const [row] = await serverDb()('fence_lines')
+    .insert({
+      property_id: context.propertyId, name: 'Spare', status: 'planned', geometry: JSON.stringify({ type: 'LineString', coordinates: FENCE.coordinates }),
+      length_m: 950, wire_spec: '{}', min_lon: 141.64, min_lat: -31.44, max_lon: 141.65, max_lat: -31.44, created_at: now, updated_at: now,
+    })
+    .returning('id');
+  return { fenceId: row.id };
+}
+
+async function spareTrack(context: Context): Promise<Partial<Context>> {
+  const [row] = await serverDb()('tracks')
+    .insert({
+      property_id: context.propertyId, name: 'Spare track', kind: 'track', source_file: 'spare.gpx', geometry: JSON.stringify({ type: 'LineString', coordinates: FENCE.coordinates }),
+      length_m: 950, min_lon: 141.64, min_lat: -31.44, max_lon: 141.65, max_lat: -31.44, created_at: new Date().toISOString(),
+    })
+    .returning('id');
+  return { trackId: row.id };
 }
 
 /** Waits until no run over the model is queued or running, so a new one may start. */
@@ -92,6 +119,15 @@ const MATRIX: Record<string, Entry> = {
   'GET /api/properties/[id]/catchment': { expect: atLeast('viewer', 200), query: '?lon=141.6455&lat=-31.4395&snapM=40' },
   'POST /api/properties/[id]/profile': { expect: atLeast('viewer', 200), body: () => ({ line: [[141.64, -31.44], [141.65, -31.44]] }) },
   'GET /api/properties/[id]/elevation-models': { expect: atLeast('viewer', 200) },
+  'GET /api/properties/[id]/fence-lines': { expect: atLeast('viewer', 200) },
+  'POST /api/properties/[id]/fence-lines': { expect: atLeast('manager', 201), body: () => FENCE },
+  'GET /api/properties/[id]/fence-lines/[fenceId]': { expect: atLeast('viewer', 200), prepare: spareFence },
+  'PATCH /api/properties/[id]/fence-lines/[fenceId]': { expect: atLeast('manager', 200), prepare: spareFence, body: () => ({ name: 'Renamed', version: 1 }) },
+  'DELETE /api/properties/[id]/fence-lines/[fenceId]': { expect: atLeast('manager', 204), prepare: spareFence },
+  'GET /api/properties/[id]/paddocks': { expect: atLeast('viewer', 200) },
+  'GET /api/properties/[id]/tracks': { expect: atLeast('viewer', 200) },
+  'POST /api/properties/[id]/tracks': { expect: atLeast('manager', 201), file: { bytes: KML_FILE, type: 'application/vnd.google-earth.kml+xml', query: '?name=old.kml' } },
+  'POST /api/properties/[id]/tracks/[trackId]/fence-line': { expect: atLeast('manager', 201), prepare: spareTrack },
   'POST /api/properties/[id]/elevation-models': {
     expect: atLeast('manager', 201),
     file: { bytes: DEM, type: 'image/tiff', query: '?name=saltbush-rise-dem.tif' },
@@ -136,7 +172,9 @@ function fill(route: string, context: Context): string {
     .replace('[id]', String(context.propertyId))
     .replace('[userId]', String(context.targetUserId))
     .replace('[runId]', String(context.runId))
-    .replace('[modelId]', String(context.modelId ?? context.elevationModelId));
+    .replace('[modelId]', String(context.modelId ?? context.elevationModelId))
+    .replace('[fenceId]', String(context.fenceId ?? 0))
+    .replace('[trackId]', String(context.trackId ?? 0));
 }
 
 const clients = {} as Record<Caller, TestClient>;

@@ -113,7 +113,8 @@ export function parseWith<T>(schema: ZodType<T, ZodTypeDef, unknown>, value: unk
   throw new ValidationError(fields);
 }
 
-async function readTextWithin(request: Request, limitBytes: number): Promise<string> {
+/** Reads a request body as UTF-8 text, refusing it past `limitBytes` (413). */
+export async function readTextWithin(request: Request, limitBytes: number): Promise<string> {
   const declared = Number(request.headers.get('content-length') ?? 'NaN');
   if (declared > limitBytes) throw new PayloadTooLargeError(limitBytes);
   if (!request.body) return '';

@@ -49,8 +49,8 @@ describe('terrain runs after a restart', () => {
     const finished = await findRunById(waiting);
     expect(finished?.status, finished?.message ?? '').toBe('succeeded');
     expect(finished?.summary?.drainageLineCount).toBeGreaterThan(10);
-    const [{ n }] = await db()('drainage_lines').where({ terrain_run_id: waiting }).count<{ n: number }[]>({ n: '*' });
-    expect(Number(n)).toBe(finished?.summary?.drainageLineCount);
+    const [counted] = await db()('drainage_lines').where({ terrain_run_id: waiting }).count<{ n: number }[]>({ n: '*' });
+    expect(Number(counted?.n)).toBe(finished?.summary?.drainageLineCount);
     // The property without an extent took the model's.
     const property = await db()('properties').where({ id: propertyId }).first('extent_west');
     expect(property.extent_west).toBeCloseTo(141.6313, 3);

@@ -50,6 +50,12 @@ export async function recoverTerrainRuns(): Promise<void> {
       finishedAt: new Date().toISOString(),
     });
   }
+  await pickUpQueuedRuns();
+  // Runs queued by another process (the demo seed, a second server) are picked up within seconds.
+  setInterval(() => void pickUpQueuedRuns().catch(() => undefined), 10_000).unref();
+}
+
+async function pickUpQueuedRuns(): Promise<void> {
   for (const run of await listRunsWithStatus(['queued'])) enqueueTerrainRun(run.id);
 }
 

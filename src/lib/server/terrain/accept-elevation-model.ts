@@ -31,6 +31,26 @@ export async function acceptElevationModel(input: {
   declaredBytes: number;
 }): Promise<AcceptedElevationModel> {
   const { tempFile, sizeBytes } = await receiveUpload(input.body, input.declaredBytes);
+  const accepted = await registerElevationModel({ ...input, tempFile, sizeBytes });
+  enqueueTerrainRun(accepted.run.id);
+  return accepted;
+}
+
+/**
+ * Records an elevation model file already on disk (moved into the data folder) with a queued
+ * terrain run. The caller starts the run (the server), or leaves it queued for the server to pick
+ * up when it starts (the demo seed). The file is removed when it cannot be used.
+ */
+export async function registerElevationModel(input: {
+  propertyId: number;
+  userId: number;
+  name: string;
+  crs?: string;
+  thresholdHa?: number;
+  tempFile: string;
+  sizeBytes: number;
+}): Promise<AcceptedElevationModel> {
+  const { tempFile, sizeBytes } = input;
   let storedFile: string | undefined;
   try {
     const header = await inspectElevationModel(tempFile, { maxCells: getConfig().maxRasterCells, assumeCrs: input.crs });
@@ -83,7 +103,6 @@ export async function acceptElevationModel(input: {
       );
       return { modelId: id, run: queued };
     });
-    enqueueTerrainRun(run.id);
     const elevationModel = (await listElevationModels(input.propertyId)).find((model) => model.id === modelId)!;
     return { elevationModel, run, warnings };
   } catch (error) {

@@ -1,0 +1,116 @@
+import type { Knex } from 'knex';
+import { boundsOf, lineLengthM } from '../../geo/measure';
+import { fenceLineInputSchema, type FenceLine, type FenceLineInput, type FenceStatus, type WireSpec } from '../../schemas/plan';
+import { db } from '../db';
+import { ConflictError, NotFoundError } from '../http';
+import { recordAudit } from './audit-log';
+
+type FenceRow = {
+  id: number;
+  property_id: number;
+  name: string;
+  status: FenceStatus;
+  geometry: string;
+  length_m: number;
+  wire_spec: string;
+  version: number;
+  updated_at: string;
+};
+
+function rowToFence(row: FenceRow): FenceLine {
+  return {
+    id: row.id,
+    name: row.name,
+    status: row.status,
+    coordinates: (JSON.parse(row.geometry) as { coordinates: [number, number][] }).coordinates,
+    lengthM: row.length_m,
+    wireSpec: JSON.parse(row.wire_spec) as WireSpec,
+    version: row.version,
+    updatedAt: row.updated_at,
+  };
+}
+
+function geometryColumns(coordinates: [number, number][]) {
+  const [minLon, minLat, maxLon, maxLat] = boundsOf(coordinates);
+  return {
+    geometry: JSON.stringify({ type: 'LineString', coordinates }),
+    length_m: lineLengthM(coordinates),
+    min_lon: minLon,
+    min_lat: minLat,
+    max_lon: maxLon,
+    max_lat: maxLat,
+  };
+}
+
+export async function listFenceLines(propertyId: number, trx: Knex = db()): Promise<FenceLine[]> {
+  return (await trx<FenceRow>('fence_lines').where({ property_id: propertyId }).orderBy('id')).map(rowToFence);
+}
+
+/** @throws NotFoundError (also for another property's fence line) */
+export async function getFenceLine(propertyId: number, id: number, trx: Knex = db()): Promise<FenceLine> {
+  const row = await trx<FenceRow>('fence_lines').where({ id, property_id: propertyId }).first();
+  if (!row) throw new NotFoundError('fence line');
+  return rowToFence(row);
+}
+
+export async function createFenceLine(propertyId: number, input: FenceLineInput, userId: number | null, trx?: Knex): Promise<FenceLine> {
+  const write = async (t: Knex) => {
+    const now = new Date().toISOString();
+    const [row] = await t<FenceRow>('fence_lines')
+      .insert({
+        property_id: propertyId,
+        name: input.name,
+        status: input.status,
+        wire_spec: JSON.stringify(input.wireSpec),
+        ...geometryColumns(input.coordinates),
+        created_by: userId,
+        created_at: now,
+        updated_at: now,
+      } as Partial<FenceRow>)
+      .returning('*');
+    const fence = rowToFence(row as FenceRow);
+    await recordAudit({ propertyId, userId, action: 'fence_line.create', entityType: 'fence_line', entityId: fence.id, detail: { name: fence.name } }, t);
+    return fence;
+  };
+  return trx ? write(trx) : db().transaction(write);
+}
+
+/**
+ * Changes a fence line; the caller sends the version it read, and an edit made on stale data is
+ * refused (409) with nothing changed.
+ */
+export async function updateFenceLine(
+  propertyId: number,
+  id: number,
+  changes: Partial<FenceLineInput> & { version: number },
+  userId: number,
+): Promise<FenceLine> {
+  return db().transaction(async (trx) => {
+    const current = await getFenceLine(propertyId, id, trx);
+    if (current.version !== changes.version) {
+      throw new ConflictError(`Someone changed "${current.name}" since you opened it (now version ${current.version}). Reload it to see their change, then edit again.`);
+    }
+    const merged = fenceLineInputSchema.parse({ ...current, ...changes });
+    await trx('fence_lines')
+      .where({ id, property_id: propertyId, version: changes.version })
+      .update({
+        name: merged.name,
+        status: merged.status,
+        wire_spec: JSON.stringify(merged.wireSpec),
+        ...geometryColumns(merged.coordinates),
+        version: changes.version + 1,
+        updated_at: new Date().toISOString(),
+      });
+    const { version: _version, ...changed } = changes;
+    await recordAudit({ propertyId, userId, action: 'fence_line.update', entityType: 'fence_line', entityId: id, detail: { fields: Object.keys(changed) } }, trx);
+    return getFenceLine(propertyId, id, trx);
+  });
+}
+
+export async function deleteFenceLine(propertyId: number, id: number, userId: number): Promise<void> {
+  await db().transaction(async (trx) => {
+    const fence = await getFenceLine(propertyId, id, trx);
+    await trx('fence_lines').where({ id, property_id: propertyId }).delete();
+    await recordAudit({ propertyId, userId, action: 'fence_line.delete', entityType: 'fence_line', entityId: id, detail: { name: fence.name } }, trx);
+  });
+}

@@ -1,0 +1,23 @@
+import type { APIRoute } from 'astro';
+import { fenceLineUpdateSchema } from '../../../../../lib/schemas/plan';
+import { requireRole } from '../../../../../lib/server/auth';
+import { parseId, readJson } from '../../../../../lib/server/http';
+import { deleteFenceLine, getFenceLine, updateFenceLine } from '../../../../../lib/server/repos/fence-lines';
+
+export const GET: APIRoute = async ({ locals, params }) => {
+  const { propertyId } = await requireRole(locals, params.id, 'viewer');
+  return Response.json({ fenceLine: await getFenceLine(propertyId, parseId(params.fenceId, 'fence line')) });
+};
+
+/** Changes a fence line; send the `version` you read (409 when someone changed it meanwhile). */
+export const PATCH: APIRoute = async ({ locals, params, request }) => {
+  const { propertyId, user } = await requireRole(locals, params.id, 'manager');
+  const changes = await readJson(request, fenceLineUpdateSchema);
+  return Response.json({ fenceLine: await updateFenceLine(propertyId, parseId(params.fenceId, 'fence line'), changes, user.id) });
+};
+
+export const DELETE: APIRoute = async ({ locals, params }) => {
+  const { propertyId, user } = await requireRole(locals, params.id, 'manager');
+  await deleteFenceLine(propertyId, parseId(params.fenceId, 'fence line'), user.id);
+  return new Response(null, { status: 204 });
+};
