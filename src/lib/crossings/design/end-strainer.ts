@@ -84,12 +84,13 @@ export function placeEndStrainer(
     }
     const lowArea = walkToLevel(profile, toDry.chainageM, dir * Infinity, level, 'rise');
     if (lowArea.stop !== 'level') {
-      const chainageM = lowArea.chainageM + dir * setbackM;
+      // The ground never rises clear again on this side: rather than carry the floodgate across
+      // all of it, the strainer keeps its set-back place and the warning says why it is not dry.
       warnings.push(
-        `Another low area starts at ${fmt(toDry.chainageM)} and runs to the ${lowArea.stop === 'gap' ? 'gap' : 'end'} of the profile at ${fmt(lowArea.chainageM)}: ` +
-          `strainer placed provisionally at ${fmt(chainageM)}; extend the profile or check the ground on site.`,
+        `Another low area starts at ${fmt(toDry.chainageM)} and runs to the ${lowArea.stop === 'gap' ? 'gap' : 'end'} of the profile at ${fmt(lowArea.chainageM)}, all below flood level + freeboard: ` +
+          `the strainer is placed provisionally at ${fmt(targetM)}, in ground the flood may reach. Check the ground on site, or consider moving the fence line.`,
       );
-      return result(chainageM, false);
+      return result(targetM, false);
     }
     reasons.push(
       `The ground from ${fmt(Math.min(toDry.chainageM, lowArea.chainageM))} to ${fmt(Math.max(toDry.chainageM, lowArea.chainageM))} (lowest ${fmt(lowArea.lowestM)}) also lies below flood level + freeboard, ` +
