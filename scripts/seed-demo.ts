@@ -8,6 +8,8 @@ import { createFenceLine } from '../src/lib/server/repos/fence-lines';
 import { storeImportedFile } from '../src/lib/server/repos/tracks';
 import { dataPath } from '../src/lib/server/storage';
 import { registerElevationModel } from '../src/lib/server/terrain/accept-elevation-model';
+import type { IfdTableInput } from '../src/lib/schemas/crossing';
+import { updatePropertySettings, type PriceItem } from '../src/lib/server/repos/property-settings';
 import { db } from '../src/lib/server/db';
 import { hashPassword } from '../src/lib/server/passwords';
 import { addMember } from '../src/lib/server/repos/memberships';
@@ -49,6 +51,19 @@ export async function seedDemo(): Promise<void> {
   }
   const managerId = ids[DEMO_ACCOUNTS.findIndex((account) => account.role === 'manager')]!;
   await loadSampleFiles(property.id, managerId);
+  // Invented rainfall table and prices (data-samples/*.json say so), so crossings design at once.
+  const ifd = JSON.parse(readFileSync('data-samples/saltbush-rise-ifd.json', 'utf8')) as IfdTableInput & { invented: string };
+  const prices = JSON.parse(readFileSync('data-samples/saltbush-rise-prices.json', 'utf8')) as { labour: { ratePerDayCents: number; metresPerDay: number }; items: PriceItem[] };
+  await updatePropertySettings(
+    property.id,
+    {
+      ifdTable: { aepPercent: ifd.aepPercent, durationsMin: ifd.durationsMin, intensitiesMmH: ifd.intensitiesMmH, source: ifd.source },
+      priceList: prices.items,
+      designSettings: { labourRatePerDayCents: prices.labour.ratePerDayCents, metresPerDay: prices.labour.metresPerDay },
+    },
+    0,
+    managerId,
+  );
   console.log(`Loaded the demo property "${manifest.name}" (id ${property.id}) with ${DEMO_ACCOUNTS.length} demo accounts.`);
   console.log('Its elevation model is queued: the server runs the terrain when it starts.');
 }

@@ -40,6 +40,7 @@ export interface CrossingDesignInput {
 
 export type CrossingDesign =
   | { readonly status: 'failed'; readonly problem: string; readonly cautions: readonly string[] }
+  | { readonly status: 'no-channel'; readonly problem: string; readonly cautions: readonly string[] }
   | {
       readonly status: 'needs-input';
       readonly problem: string;
@@ -85,7 +86,14 @@ export function designCrossing(input: CrossingDesignInput): CrossingDesign {
   try {
     section = channelCrossSection(input.profile, input.crossingChainageM, input.crossingAngleDeg, { halfWidthM: settings.profileHalfWidthM });
   } catch (error) {
-    if (error instanceof NoChannelError || error instanceof RangeError) return { status: 'failed', problem: error.message, cautions: FENCING_CAUTIONS };
+    if (error instanceof NoChannelError) {
+      return {
+        status: 'no-channel',
+        problem: `No defined channel here: the ground along the fence does not dip where the drainage line crosses it, so water runs across as a sheet rather than in a channel. An ordinary fence usually copes; check the place after rain. (${error.message})`,
+        cautions: FENCING_CAUTIONS,
+      };
+    }
+    if (error instanceof RangeError) return { status: 'failed', problem: error.message, cautions: FENCING_CAUTIONS };
     throw error;
   }
   const [leftBank, rightBank] = section.bankStationsM;
@@ -110,12 +118,15 @@ export function designCrossing(input: CrossingDesignInput): CrossingDesign {
       cautions: FENCING_CAUTIONS,
     };
   }
-  const levelM = floods.levelM;
+  // The drainage line follows cell centres, so it may meet the fence a little off the channel's
+  // lowest point: the wet zone and layout are centred on the bed the section found.
+  const bedChainageM = section.bed.chainageM;
+  const levelM = Math.max(floods.levelM, section.bed.elevationM);
   const meanVelocityMs =
     floods.meanVelocityMs ?? manningDischarge({ stationsM: section.stationsM, elevationsM: section.elevationsM }, levelM, { slope: energySlope, roughness }).meanVelocityMs;
   const warnings = [...section.warnings, ...floods.warnings];
 
-  const wetZone = findWetZone(input.profile, input.crossingChainageM, levelM, freeboardM);
+  const wetZone = findWetZone(input.profile, bedChainageM, levelM, freeboardM);
   const plainWire = findWireType(input.fence.plainWireTypeId);
   // The issue's default deflection: the design flood depth at the deepest point.
   const deflectionM = Math.min(wetZone.maxDepthM, 0.45 * wetZone.lengthM);
@@ -132,7 +143,7 @@ export function designCrossing(input: CrossingDesignInput): CrossingDesign {
   }
   const layout = layoutFloodgate({
     profile: input.profile,
-    crossingChainageM: input.crossingChainageM,
+    crossingChainageM: bedChainageM,
     crossingAngleDeg: input.crossingAngleDeg,
     floodLevelM: levelM,
     meanVelocityMs,
@@ -179,7 +190,7 @@ export function designCrossing(input: CrossingDesignInput): CrossingDesign {
     wireCheck,
     loads,
     materials,
-    warnings: [...warnings, ...layout.warnings, ...materials.warnings],
+    warnings: [...new Set([...warnings, ...layout.warnings, ...materials.warnings])],
     cautions: FENCING_CAUTIONS,
     used: { channelN, overbankN, freeboardM, style, energySlope, deflectionM, pretensionN: settings.pretensionN, safeFractionOfBreaking: settings.safeFractionOfBreaking },
   };

@@ -61,9 +61,11 @@ export class NoChannelError extends RangeError {
  * The section takes the known ground within `halfWidthM` of the crossing along the fence (ends
  * interpolated), stopping early at a gap. The bed is its lowest point within `bedSearchM` of the
  * crossing (nearest the crossing on a tie). Bank rule (our own, simple and stated): on each side,
- * the side's top is its highest ground within the section; walking out from the bed, the bank is
- * the first sample whose ground has climbed to within `bankToleranceFraction` of the relief
- * (top − bed) below that top. On a trapezoid that is the top corner of each side slope.
+ * the side's top is its highest ground within the section; where the ground stands well above
+ * the straight line from the bed to that top (a quarter of the relief or more), the bank is the
+ * break of slope farthest above that line — the top of a trapezoid's side slope even when the
+ * plain beyond keeps rising gently; otherwise, walking out from the bed, the bank is the first
+ * sample whose ground has climbed to within `bankToleranceFraction` of the relief below the top.
  *
  * @param profile - ground along the fence, sorted by chainage, nulls for gaps; not modified
  * @param crossingChainageM - where the drainage line meets the fence, metres along the fence
@@ -136,11 +138,35 @@ export function channelCrossSection(
   };
 }
 
-/** Walks out from the bed on one side to the bank (see {@link channelCrossSection}). */
+/**
+ * Walks out from the bed on one side to the bank (see {@link channelCrossSection}). Where the side
+ * has a clear top of bank — ground standing well above the straight line from the bed to the
+ * side's top (at least a quarter of the relief) — the bank is that break of slope, the point
+ * farthest above the line; otherwise (a V, or an even slope) the tolerance rule applies.
+ */
 function findBank(points: readonly SectionPoint[], bedIndex: number, dir: 1 | -1, tolerance: number): { point: SectionPoint; topM: number } {
-  const bedM = points[bedIndex]!.elevationM;
+  const bed = points[bedIndex]!;
+  const bedM = bed.elevationM;
   let topM = bedM;
-  for (let i = bedIndex; i >= 0 && i < points.length; i += dir) topM = Math.max(topM, points[i]!.elevationM);
+  let topIndex = bedIndex;
+  for (let i = bedIndex; i >= 0 && i < points.length; i += dir) {
+    if (points[i]!.elevationM > topM) {
+      topM = points[i]!.elevationM;
+      topIndex = i;
+    }
+  }
+  const top = points[topIndex]!;
+  let kneeIndex = -1;
+  let kneeHeightM = 0;
+  for (let i = bedIndex + dir; i !== topIndex && i >= 0 && i < points.length; i += dir) {
+    const p = points[i]!;
+    const chordM = bedM + ((topM - bedM) * (p.stationM - bed.stationM)) / (top.stationM - bed.stationM);
+    if (p.elevationM - chordM > kneeHeightM) {
+      kneeHeightM = p.elevationM - chordM;
+      kneeIndex = i;
+    }
+  }
+  if (kneeIndex >= 0 && kneeHeightM >= 0.25 * (topM - bedM)) return { point: points[kneeIndex]!, topM };
   const thresholdM = topM - tolerance * (topM - bedM);
   for (let i = bedIndex + dir; i >= 0 && i < points.length; i += dir) {
     if (points[i]!.elevationM >= thresholdM) return { point: points[i]!, topM };

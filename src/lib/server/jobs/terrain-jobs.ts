@@ -2,6 +2,7 @@ import { existsSync } from 'node:fs';
 import path from 'node:path';
 import { pathToFileURL } from 'node:url';
 import { Worker } from 'node:worker_threads';
+import { analyseCrossings } from '../crossings/analyse-crossings';
 import { db } from '../db';
 import { getConfig } from '../config';
 import { recordAudit } from '../repos/audit-log';
@@ -111,7 +112,11 @@ async function startRun(runId: number): Promise<void> {
     if (message.type === 'progress') {
       void updateRunProgress(runId, message.stage, message.percent).catch(() => undefined);
     } else if (message.type === 'done') {
-      void finish(() => recordSuccess(run.propertyId, runId, run.elevationModelId, message.summary));
+      void finish(async () => {
+        await recordSuccess(run.propertyId, runId, run.elevationModelId, message.summary);
+        // New drainage lines: find and design the property's crossings again.
+        await analyseCrossings(run.propertyId).catch((error: unknown) => console.error(`[gullyline] crossings after terrain run ${runId}:`, error));
+      });
       void worker.terminate();
     } else {
       if (!message.expected) console.error(`[gullyline] terrain run ${runId} failed:`, message.message);

@@ -1,6 +1,7 @@
 import { readFile } from 'node:fs/promises';
 import path from 'node:path';
 import type { TerrainRun } from '../../schemas/terrain';
+import { analyseCrossings } from '../crossings/analyse-crossings';
 import { db } from '../db';
 import { ConflictError, NotFoundError } from '../http';
 import { cancelTerrainRun, enqueueTerrainRun } from '../jobs/terrain-jobs';
@@ -49,6 +50,8 @@ export async function deleteElevationModel(propertyId: number, elevationModelId:
   });
   await removeQuietly(path.dirname(dataPath(storedFile)));
   for (const run of runs) await removeQuietly(dataPath(terrainRunFolder(run.id)));
+  // Its drainage lines are gone: the crossings with them.
+  await analyseCrossings(propertyId);
 }
 
 const RUN_FILES = { 'hillshade.png': 'image/png', 'contours.geojson': 'application/geo+json' } as const;

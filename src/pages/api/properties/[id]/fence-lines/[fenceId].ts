@@ -2,6 +2,7 @@ import type { APIRoute } from 'astro';
 import { fenceLineUpdateSchema } from '../../../../../lib/schemas/plan';
 import { requireRole } from '../../../../../lib/server/auth';
 import { parseId, readJson } from '../../../../../lib/server/http';
+import { analyseCrossings } from '../../../../../lib/server/crossings/analyse-crossings';
 import { deleteFenceLine, getFenceLine, updateFenceLine } from '../../../../../lib/server/repos/fence-lines';
 
 export const GET: APIRoute = async ({ locals, params }) => {
@@ -13,7 +14,9 @@ export const GET: APIRoute = async ({ locals, params }) => {
 export const PATCH: APIRoute = async ({ locals, params, request }) => {
   const { propertyId, user } = await requireRole(locals, params.id, 'manager');
   const changes = await readJson(request, fenceLineUpdateSchema);
-  return Response.json({ fenceLine: await updateFenceLine(propertyId, parseId(params.fenceId, 'fence line'), changes, user.id) });
+  const fenceLine = await updateFenceLine(propertyId, parseId(params.fenceId, 'fence line'), changes, user.id);
+  await analyseCrossings(propertyId, [fenceLine.id]);
+  return Response.json({ fenceLine });
 };
 
 export const DELETE: APIRoute = async ({ locals, params }) => {

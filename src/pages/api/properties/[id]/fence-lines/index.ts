@@ -2,6 +2,7 @@ import type { APIRoute } from 'astro';
 import { fenceLineInputSchema } from '../../../../../lib/schemas/plan';
 import { requireRole } from '../../../../../lib/server/auth';
 import { readJson } from '../../../../../lib/server/http';
+import { analyseCrossings } from '../../../../../lib/server/crossings/analyse-crossings';
 import { createFenceLine, listFenceLines } from '../../../../../lib/server/repos/fence-lines';
 
 export const GET: APIRoute = async ({ locals, params }) => {
@@ -12,5 +13,7 @@ export const GET: APIRoute = async ({ locals, params }) => {
 export const POST: APIRoute = async ({ locals, params, request }) => {
   const { propertyId, user } = await requireRole(locals, params.id, 'manager');
   const input = await readJson(request, fenceLineInputSchema);
-  return Response.json({ fenceLine: await createFenceLine(propertyId, input, user.id) }, { status: 201 });
+  const fenceLine = await createFenceLine(propertyId, input, user.id);
+  await analyseCrossings(propertyId, [fenceLine.id]);
+  return Response.json({ fenceLine }, { status: 201 });
 };

@@ -1,0 +1,92 @@
+import type { Knex } from 'knex';
+import type { CrossingInputs } from '../../schemas/crossing';
+import { db } from '../db';
+import { NotFoundError } from '../http';
+
+type CrossingRow = {
+  id: number;
+  property_id: number;
+  fence_line_id: number;
+  fence_name: string;
+  drainage_line_id: number | null;
+  kind: string;
+  lon: number;
+  lat: number;
+  chainage_m: number;
+  angle_deg: number | null;
+  angle_class: string | null;
+  upstream_area_m2: number | null;
+  stream_order: number | null;
+  inputs: string;
+  design: string | null;
+  design_status: string;
+  computed_at: string | null;
+};
+
+/** What the crossing list and the map show of a crossing. */
+export type CrossingSummary = {
+  id: number;
+  fenceLineId: number;
+  fenceName: string;
+  drainageLineId: number | null;
+  kind: string;
+  position: [number, number];
+  chainageM: number;
+  angleDeg: number | null;
+  angleClass: string | null;
+  upstreamAreaHa: number | null;
+  streamOrder: number | null;
+  designStatus: string;
+  provisional: boolean;
+  style: string | null;
+  floodLevelM: number | null;
+  floodgateLengthM: number | null;
+  computedAt: string | null;
+};
+
+function rowToSummary(row: CrossingRow, design: Record<string, unknown> | null): CrossingSummary {
+  const layout = design?.layout as { style?: string; floodgate?: { lengthM?: number } } | undefined;
+  const floods = design?.floods as { levelM?: number | null } | undefined;
+  return {
+    id: row.id,
+    fenceLineId: row.fence_line_id,
+    fenceName: row.fence_name,
+    drainageLineId: row.drainage_line_id,
+    kind: row.kind,
+    position: [row.lon, row.lat],
+    chainageM: row.chainage_m,
+    angleDeg: row.angle_deg,
+    angleClass: row.angle_class,
+    upstreamAreaHa: row.upstream_area_m2 === null ? null : row.upstream_area_m2 / 10_000,
+    streamOrder: row.stream_order,
+    designStatus: row.design_status,
+    provisional: Boolean(design?.provisional),
+    style: layout?.style ?? null,
+    floodLevelM: floods?.levelM ?? null,
+    floodgateLengthM: layout?.floodgate?.lengthM ?? null,
+    computedAt: row.computed_at,
+  };
+}
+
+const selectRows = (trx: Knex) =>
+  trx<CrossingRow>('crossings as c').join('fence_lines as f', 'f.id', 'c.fence_line_id').select('c.*', 'f.name as fence_name');
+
+export async function listCrossings(propertyId: number, trx: Knex = db()): Promise<CrossingSummary[]> {
+  const rows = await selectRows(trx).where('c.property_id', propertyId).orderBy([{ column: 'c.fence_line_id' }, { column: 'c.chainage_m' }]);
+  return rows.map((row) => rowToSummary(row, row.design ? (JSON.parse(row.design) as Record<string, unknown>) : null));
+}
+
+/** One crossing with its inputs and full design. @throws NotFoundError (also for another property's crossing) */
+export async function getCrossing(propertyId: number, id: number, trx: Knex = db()) {
+  const row = await selectRows(trx).where({ 'c.id': id, 'c.property_id': propertyId }).first();
+  if (!row) throw new NotFoundError('crossing');
+  const design = row.design ? (JSON.parse(row.design) as Record<string, unknown>) : null;
+  return { ...rowToSummary(row, design), inputs: JSON.parse(row.inputs) as CrossingInputs, design };
+}
+
+export async function setCrossingInputs(propertyId: number, id: number, inputs: CrossingInputs, trx: Knex = db()): Promise<{ fenceLineId: number }> {
+  const row = await trx('crossings').where({ id, property_id: propertyId }).first('fence_line_id');
+  if (!row) throw new NotFoundError('crossing');
+  await trx('crossings').where({ id }).update({ inputs: JSON.stringify(inputs) });
+  return { fenceLineId: row.fence_line_id };
+}

@@ -1,0 +1,19 @@
+import type { APIRoute } from 'astro';
+import { z } from 'zod';
+import { requireRole } from '../../../../../../lib/server/auth';
+import { changeCrossingInputs } from '../../../../../../lib/server/crossings/crossing-service';
+import { parseId, readJson } from '../../../../../../lib/server/http';
+import { getCrossing } from '../../../../../../lib/server/repos/crossings';
+
+/** One crossing's full design: profile, floods, layout with reasons, wire check, loads, materials, cautions. */
+export const GET: APIRoute = async ({ locals, params }) => {
+  const { propertyId } = await requireRole(locals, params.id, 'viewer');
+  return Response.json({ crossing: await getCrossing(propertyId, parseId(params.crossingId, 'crossing')) });
+};
+
+/** Sets the crossing's inputs (flood mark, n, C, AEP, freeboard, style; null to clear) and designs it again. */
+export const PATCH: APIRoute = async ({ locals, params, request }) => {
+  const { propertyId, user } = await requireRole(locals, params.id, 'manager');
+  const changes = await readJson(request, z.record(z.unknown()));
+  return Response.json({ crossing: await changeCrossingInputs(propertyId, parseId(params.crossingId, 'crossing'), changes, user.id) });
+};
