@@ -8,7 +8,7 @@ import { TestClient, closeServerDb, newAccount, serverDb, signedInClient } from 
 
 const CALLERS = ['anonymous', 'outsider', 'viewer', 'crew', 'manager', 'owner'] as const;
 type Caller = (typeof CALLERS)[number];
-type Context = { propertyId: number; targetUserId: number; elevationModelId: number; runId: number; modelId?: number; fenceId?: number; trackId?: number };
+type Context = { propertyId: number; targetUserId: number; elevationModelId: number; runId: number; modelId?: number; fenceId?: number; trackId?: number; crossingId?: number };
 type Entry = {
   expect: Record<Caller, number>;
   body?: (context: Context) => Promise<unknown> | unknown;
@@ -69,6 +69,19 @@ async function spareTrack(context: Context): Promise<Partial<Context>> {
   return { trackId: row.id };
 }
 
+const MANIFEST = JSON.parse(readFileSync('data-samples/saltbush-rise.json', 'utf8')) as { fenceLines: { name: string; pointsLonLat: [number, number][] }[] };
+const fenceNamed = (name: string) => MANIFEST.fenceLines.find((fence) => fence.name === name)!.pointsLonLat;
+
+/** A fence across the main creek at 35° (data-samples), drawn anew, and its main-creek crossing. */
+async function obliqueCrossing(context: Context): Promise<Partial<Context>> {
+  const { body } = await clients.owner.json<{ fenceLine: { id: number } }>('POST', `/api/properties/${context.propertyId}/fence-lines`, {
+    name: 'Oblique',
+    coordinates: fenceNamed('South cross fence'),
+  });
+  const crossings = await serverDb()('crossings').where({ fence_line_id: body.fenceLine.id, kind: 'crossing' }).orderBy('upstream_area_m2', 'desc');
+  return { crossingId: crossings[0].id };
+}
+
 /** Waits until no run over the model is queued or running, so a new one may start. */
 async function idleModel(context: Context): Promise<Partial<Context>> {
   for (let i = 0; i < 300; i++) {
@@ -119,6 +132,20 @@ const MATRIX: Record<string, Entry> = {
   'GET /api/properties/[id]/catchment': { expect: atLeast('viewer', 200), query: '?lon=141.6455&lat=-31.4395&snapM=40' },
   'POST /api/properties/[id]/profile': { expect: atLeast('viewer', 200), body: () => ({ line: [[141.64, -31.44], [141.65, -31.44]] }) },
   'GET /api/properties/[id]/elevation-models': { expect: atLeast('viewer', 200) },
+  'GET /api/properties/[id]/crossings': { expect: atLeast('viewer', 200) },
+  'POST /api/properties/[id]/crossings/analyse': { expect: atLeast('manager', 200) },
+  'GET /api/properties/[id]/crossings/[crossingId]': { expect: atLeast('viewer', 200) },
+  'PATCH /api/properties/[id]/crossings/[crossingId]': { expect: atLeast('manager', 200), body: () => ({ floodMarkM: 1.1 }) },
+  'GET /api/properties/[id]/crossings/[crossingId]/realignment': { expect: atLeast('viewer', 200) },
+  'POST /api/properties/[id]/crossings/[crossingId]/realignment': { expect: atLeast('manager', 200), prepare: obliqueCrossing, body: () => ({ version: 1 }) },
+  'GET /api/properties/[id]/settings': { expect: atLeast('viewer', 200) },
+  'PATCH /api/properties/[id]/settings': {
+    expect: atLeast('manager', 200),
+    body: async ({ propertyId }) => {
+      const row = await serverDb()('property_settings').where({ property_id: propertyId }).first('version');
+      return { version: row?.version ?? 0, designSettings: { freeboardM: 0.35 } };
+    },
+  },
   'GET /api/properties/[id]/fence-lines': { expect: atLeast('viewer', 200) },
   'POST /api/properties/[id]/fence-lines': { expect: atLeast('manager', 201), body: () => FENCE },
   'GET /api/properties/[id]/fence-lines/[fenceId]': { expect: atLeast('viewer', 200), prepare: spareFence },
@@ -174,7 +201,8 @@ function fill(route: string, context: Context): string {
     .replace('[runId]', String(context.runId))
     .replace('[modelId]', String(context.modelId ?? context.elevationModelId))
     .replace('[fenceId]', String(context.fenceId ?? 0))
-    .replace('[trackId]', String(context.trackId ?? 0));
+    .replace('[trackId]', String(context.trackId ?? 0))
+    .replace('[crossingId]', String(context.crossingId ?? 0));
 }
 
 const clients = {} as Record<Caller, TestClient>;
@@ -202,6 +230,8 @@ beforeAll(async () => {
   context.elevationModelId = uploaded.elevationModel.id;
   context.runId = uploaded.run.id;
   await idleModel(context);
+  // A fence square across the main creek (data-samples), for the routes that read a crossing.
+  Object.assign(context, await obliqueCrossing(context));
 }, 60_000);
 
 afterAll(closeServerDb);

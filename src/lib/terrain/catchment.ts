@@ -138,14 +138,36 @@ function snapToChannel(grid: ElevationGrid, areaM2: Float64Array, transform: Gri
   return best;
 }
 
-/** Cell-edge outline of a 0/1 mask through d3-contour's marching squares at the 0.5 level. */
+/**
+ * Cell-edge outline of a 0/1 mask through d3-contour's marching squares at the 0.5 level, run on
+ * the mask's bounding box (plus a cell of margin) so a small catchment costs little in a big model.
+ */
 function outlineMask(mask: Uint8Array, width: number, height: number, transform: GridTransform): [number, number][][][] {
-  const [outline] = contours().size([width, height]).smooth(false).thresholds([0.5])(Array.from(mask));
-  // d3-contour centres cell (col, row) at (col + 0.5, row + 0.5); unsmoothed, the outline runs
-  // along cell edges and cuts outer corners diagonally. The reported area comes from the cells.
+  let [minCol, minRow, maxCol, maxRow] = [width, height, -1, -1];
+  for (let i = 0; i < mask.length; i++) {
+    if (!mask[i]) continue;
+    const col = i % width;
+    const row = (i - col) / width;
+    if (col < minCol) minCol = col;
+    if (col > maxCol) maxCol = col;
+    if (row < minRow) minRow = row;
+    if (row > maxRow) maxRow = row;
+  }
+  if (maxCol < 0) return [];
+  const col0 = minCol - 1;
+  const row0 = minRow - 1;
+  const boxWidth = maxCol - minCol + 3;
+  const boxHeight = maxRow - minRow + 3;
+  const box = new Array<number>(boxWidth * boxHeight).fill(0);
+  for (let row = minRow; row <= maxRow; row++) {
+    for (let col = minCol; col <= maxCol; col++) box[(row - row0) * boxWidth + (col - col0)] = mask[row * width + col]!;
+  }
+  const [outline] = contours().size([boxWidth, boxHeight]).smooth(false).thresholds([0.5])(box);
+  // d3-contour centres box cell (c, r) at (c + 0.5, r + 0.5); unsmoothed, the outline runs along
+  // cell edges and cuts outer corners diagonally. The reported area comes from the cells.
   return (outline?.coordinates ?? []).map((polygon) =>
     polygon.map((ring) =>
-      ring.map(([cx, cy]) => [transform.originX + cx! * transform.cellSizeX, transform.originY - cy! * transform.cellSizeY] as [number, number]),
+      ring.map(([cx, cy]) => [transform.originX + (cx! + col0) * transform.cellSizeX, transform.originY - (cy! + row0) * transform.cellSizeY] as [number, number]),
     ),
   );
 }

@@ -26,7 +26,20 @@ export type StoredDesign = CrossingDesign & {
  * those fence lines. What a person entered for a crossing (flood mark, roughness, style…) is
  * carried over to the crossing found again at the same place.
  */
-export async function analyseCrossings(propertyId: number, fenceLineIds?: number[]): Promise<{ crossings: number; designed: number }> {
+export function analyseCrossings(propertyId: number, fenceLineIds?: number[]): Promise<{ crossings: number; designed: number }> {
+  // One analysis of a property at a time: a terrain run finishing while a fence is edited must
+  // not interleave two writes of the same crossings.
+  const previous = queues.get(propertyId) ?? Promise.resolve();
+  const next = previous.catch(() => undefined).then(() => analyse(propertyId, fenceLineIds));
+  const tail = next.catch(() => undefined);
+  queues.set(propertyId, tail);
+  void tail.then(() => queues.get(propertyId) === tail && queues.delete(propertyId));
+  return next;
+}
+
+const queues = new Map<number, Promise<unknown>>();
+
+async function analyse(propertyId: number, fenceLineIds?: number[]): Promise<{ crossings: number; designed: number }> {
   const settings = { ...DEFAULT_DESIGN_SETTINGS, ...(await getPropertySettings(propertyId)).designSettings };
   const ifd = (await getPropertySettings(propertyId)).ifdTable;
   const fences = (await listFenceLines(propertyId)).filter((fence) => fence.status !== 'retired' && (!fenceLineIds || fenceLineIds.includes(fence.id)));

@@ -42,6 +42,7 @@ export async function stopTerrainRun(propertyId: number, runId: number, userId: 
 export async function deleteElevationModel(propertyId: number, elevationModelId: number, userId: number): Promise<void> {
   const { storedFile } = await getElevationModelFile(propertyId, elevationModelId);
   const runs = await db()('terrain_runs').where({ elevation_model_id: elevationModelId }).select('id', 'status');
+  const [lines] = await db()('drainage_lines').whereIn('terrain_run_id', runs.map((run) => run.id)).count<{ n: number }[]>({ n: '*' });
   for (const run of runs) if (run.status === 'queued' || run.status === 'running') await cancelTerrainRun(run.id);
   await db().transaction(async (trx) => {
     // Runs and drainage lines go with the model (foreign keys cascade).
@@ -51,7 +52,7 @@ export async function deleteElevationModel(propertyId: number, elevationModelId:
   await removeQuietly(path.dirname(dataPath(storedFile)));
   for (const run of runs) await removeQuietly(dataPath(terrainRunFolder(run.id)));
   // Its drainage lines are gone: the crossings with them.
-  await analyseCrossings(propertyId);
+  if (Number(lines?.n ?? 0) > 0) await analyseCrossings(propertyId);
 }
 
 const RUN_FILES = { 'hillshade.png': 'image/png', 'contours.geojson': 'application/geo+json' } as const;
