@@ -70,3 +70,45 @@ describe('npm run gullyline -- profile', () => {
     }
   });
 });
+
+describe('npm run gullyline -- design', () => {
+  it('finds the normal depth of a rectangular channel given its discharge (Ponce, SDSU CIVE 530 midterm 1 problem 4, 2008)', () => {
+    // b = 6 m, n = 0.015, S = 0.0025, Q = 32.91 m³/s → y = 1.6 m; walls 5 m high, near vertical.
+    const csv = path.join(work, 'rectangle.csv');
+    writeFileSync(csv, ['chainage_m,elevation_m', '0,105', '46.999,105', '47,100', '53,100', '53.001,105', '100,105'].join('\n'));
+    const result = cli('design', '--profile', csv, '--discharge', '32.91', '--slope', '0.0025', '--n', '0.015', '--crossing-chainage', '50');
+    expect(result.status, result.stderr).toBe(0);
+    const design = JSON.parse(result.stdout) as { status: string; floods: { chosen: string; levelM: number; maxDepthM: number }; layout: { wires: { mustBePlain: boolean }[] } };
+    expect(design.status).toBe('designed');
+    expect(design.floods.chosen).toBe('discharge');
+    expect(design.floods.maxDepthM).toBeCloseTo(1.6, 2);
+    expect(design.layout.wires.length).toBeGreaterThan(0);
+  });
+
+  it('refuses a roughness of 0 with a message saying why', () => {
+    const csv = path.join(work, 'rectangle.csv');
+    const result = cli('design', '--profile', csv, '--discharge', '10', '--slope', '0.0025', '--n', '0');
+    expect(result.status).toBe(2);
+    expect(result.stderr).toMatch(/Manning's n below 0.01/);
+  });
+});
+
+describe('npm run gullyline -- crossings', () => {
+  it('finds a square crossing of two lines at 90° (analytic case)', () => {
+    const fences = path.join(work, 'fences.geojson');
+    const drainage = path.join(work, 'drainage.geojson');
+    const line = (name: string, coordinates: number[][]) => ({ type: 'Feature', properties: { name }, geometry: { type: 'LineString', coordinates } });
+    writeFileSync(fences, JSON.stringify({ type: 'FeatureCollection', features: [line('East–west fence', [[141.64, -31.44], [141.66, -31.44]])] }));
+    writeFileSync(drainage, JSON.stringify({ type: 'FeatureCollection', features: [line('Creek', [[141.65, -31.43], [141.65, -31.45]])] }));
+    const result = cli('crossings', '--fences', fences, '--drainage', drainage);
+    expect(result.status, result.stderr).toBe(0);
+    const found = JSON.parse(result.stdout) as { crossings: { fenceId: string; crossingAngleDeg: number; angleClass: string; fenceChainageM: number }[] };
+    expect(found.crossings).toHaveLength(1);
+    expect(found.crossings[0]!.crossingAngleDeg).toBeCloseTo(90, 3);
+    expect(found.crossings[0]!.angleClass).toBe('good');
+    // Half of 0.02° of longitude at 31.44° S: about 950.8 m (the fence's geodesic length is checked
+    // against GeographicLib in the geometry core's tests).
+    expect(found.crossings[0]!.fenceChainageM).toBeGreaterThan(940);
+    expect(found.crossings[0]!.fenceChainageM).toBeLessThan(960);
+  });
+});

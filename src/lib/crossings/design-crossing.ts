@@ -33,6 +33,8 @@ export interface CrossingDesignInput {
   readonly channelSlope: number;
   readonly catchment: CatchmentFigures | null;
   readonly ifd: IfdTable | null;
+  /** A design discharge given directly, m³/s, used before the rainfall estimate (a flood mark still wins). */
+  readonly dischargeM3s?: number | null;
   readonly fence: CrossingFence;
   readonly inputs: CrossingInputs;
   readonly settings: DesignSettings;
@@ -108,6 +110,7 @@ export function designCrossing(input: CrossingDesignInput): CrossingDesign {
     aepPercent: inputs.aepPercent ?? settings.aepPercent,
     runoffCoefficient: inputs.runoffCoefficient ?? settings.runoffCoefficient,
     tcMethod: inputs.tcMethod ?? settings.tcMethod,
+    dischargeM3s: input.dischargeM3s ?? null,
   });
   if (floods.levelM === null) {
     return {

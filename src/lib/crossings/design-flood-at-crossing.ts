@@ -16,10 +16,12 @@ export interface CatchmentFigures {
 export interface CrossingFloods {
   readonly fromMark: FloodLevelFromMark | null;
   readonly fromRainfall: { readonly flood: DesignFlood; readonly level: FloodLevel } | null;
+  /** The level of a discharge given directly (the command line's `--discharge`), when there was one. */
+  readonly fromDischarge: FloodLevel | null;
   /** Why the rainfall flood could not be worked out, in words; null when it was. */
   readonly rainfallUnavailable: string | null;
-  /** Which flood the layout uses: an observed mark is the better guide when there is one. */
-  readonly chosen: 'mark' | 'rainfall' | null;
+  /** Which flood the layout uses: an observed mark is the better guide when there is one, then a given discharge. */
+  readonly chosen: 'mark' | 'discharge' | 'rainfall' | null;
   /** The chosen flood's level (m), mean velocity (m/s), deepest water (m) and wetted width (m). */
   readonly levelM: number | null;
   readonly meanVelocityMs: number | null;
@@ -44,11 +46,13 @@ export function floodsAtCrossing(input: {
   aepPercent: number;
   runoffCoefficient: number;
   tcMethod: TcMethod;
+  dischargeM3s?: number | null;
 }): CrossingFloods {
   const section = { stationsM: input.section.stationsM, elevationsM: input.section.elevationsM };
   const options = { slope: input.energySlope, roughness: input.roughness };
   const warnings: string[] = [];
   const fromMark = input.floodMarkM ? floodLevelFromMark(section, input.floodMarkM, options) : null;
+  const fromDischarge = input.dischargeM3s ? floodLevelForDischarge(section, input.dischargeM3s, options) : null;
 
   let fromRainfall: CrossingFloods['fromRainfall'] = null;
   let rainfallUnavailable: string | null = null;
@@ -74,6 +78,7 @@ export function floodsAtCrossing(input: {
     return {
       fromMark,
       fromRainfall,
+      fromDischarge,
       rainfallUnavailable,
       chosen: 'mark',
       levelM: fromMark.stageM,
@@ -84,20 +89,23 @@ export function floodsAtCrossing(input: {
       warnings,
     };
   }
-  if (fromRainfall) {
-    const { level } = fromRainfall;
-    warnings.push(...fromRainfall.flood.warnings, ...level.warnings);
+  const chosenLevel = fromDischarge ?? fromRainfall?.level;
+  if (chosenLevel) {
+    const chosen = fromDischarge ? 'discharge' : 'rainfall';
+    const level = chosenLevel;
+    warnings.push(...(fromDischarge ? [] : fromRainfall!.flood.warnings), ...level.warnings);
     if (level.overtopped) {
       warnings.push(
-        `The ${fromRainfall.flood.dischargeM3s.toFixed(1)} m³/s flood spreads past the ends of the ground profile (it carries ${level.capacityM3s.toFixed(1)} m³/s brim-full): widen the profile or treat the layout as provisional.`,
+        `The ${level.inputs.dischargeM3s.toFixed(1)} m³/s flood spreads past the ends of the ground profile (it carries ${level.capacityM3s.toFixed(1)} m³/s brim-full): widen the profile or treat the layout as provisional.`,
       );
-      return { fromMark, fromRainfall, rainfallUnavailable, chosen: 'rainfall', levelM: level.lowerEndM, meanVelocityMs: null, maxDepthM: level.lowerEndM - level.bedM, wettedWidthM: null, overtopped: true, warnings };
+      return { fromMark, fromRainfall, fromDischarge, rainfallUnavailable, chosen, levelM: level.lowerEndM, meanVelocityMs: null, maxDepthM: level.lowerEndM - level.bedM, wettedWidthM: null, overtopped: true, warnings };
     }
     return {
       fromMark,
       fromRainfall,
+      fromDischarge,
       rainfallUnavailable,
-      chosen: 'rainfall',
+      chosen,
       levelM: level.stageM,
       meanVelocityMs: level.meanVelocityMs,
       maxDepthM: level.maxDepthM,
@@ -106,5 +114,5 @@ export function floodsAtCrossing(input: {
       warnings,
     };
   }
-  return { fromMark, fromRainfall, rainfallUnavailable, chosen: null, levelM: null, meanVelocityMs: null, maxDepthM: null, wettedWidthM: null, overtopped: false, warnings };
+  return { fromMark, fromRainfall, fromDischarge, rainfallUnavailable, chosen: null, levelM: null, meanVelocityMs: null, maxDepthM: null, wettedWidthM: null, overtopped: false, warnings };
 }
