@@ -132,6 +132,8 @@ const MATRIX: Record<string, Entry> = {
   'GET /api/properties/[id]/catchment': { expect: atLeast('viewer', 200), query: '?lon=141.6455&lat=-31.4395&snapM=40' },
   'POST /api/properties/[id]/profile': { expect: atLeast('viewer', 200), body: () => ({ line: [[141.64, -31.44], [141.65, -31.44]] }) },
   'GET /api/properties/[id]/elevation-models': { expect: atLeast('viewer', 200) },
+  'GET /api/properties/[id]/costs': { expect: atLeast('viewer', 200) },
+  'GET /api/properties/[id]/materials.csv': { expect: atLeast('viewer', 200) },
   'GET /api/properties/[id]/crossings': { expect: atLeast('viewer', 200) },
   'POST /api/properties/[id]/crossings/analyse': { expect: atLeast('manager', 200) },
   'GET /api/properties/[id]/crossings/[crossingId]': { expect: atLeast('viewer', 200) },

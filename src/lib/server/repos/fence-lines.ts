@@ -1,8 +1,9 @@
 import type { Knex } from 'knex';
 import { boundsOf, lineLengthM } from '../../geo/measure';
 import { fenceLineInputSchema, type FenceLine, type FenceLineInput, type FenceStatus, type WireSpec } from '../../schemas/plan';
+import { checkFenceLine, cleanFenceLine } from '../../crossings/geometry/fence-checks';
 import { db } from '../db';
-import { ConflictError, NotFoundError } from '../http';
+import { ConflictError, NotFoundError, ValidationError } from '../http';
 import { recordAudit } from './audit-log';
 
 type FenceRow = {
@@ -28,6 +29,18 @@ function rowToFence(row: FenceRow): FenceLine {
     version: row.version,
     updatedAt: row.updated_at,
   };
+}
+
+/**
+ * A fence line's vertices made usable: repeated vertices (a double click) are dropped; a line
+ * that crosses itself or has fewer than two distinct points is refused with where and why.
+ * @throws ValidationError naming `coordinates`
+ */
+export function usableFenceCoordinates(coordinates: [number, number][]): [number, number][] {
+  const cleaned = cleanFenceLine(coordinates);
+  const problems = checkFenceLine(cleaned).filter((problem) => problem.code !== 'repeated-vertex');
+  if (problems.length) throw new ValidationError({ coordinates: problems.map((problem) => problem.message).join(' ') }, 'The fence line cannot be used as drawn.');
+  return cleaned;
 }
 
 function geometryColumns(coordinates: [number, number][]) {
@@ -62,7 +75,7 @@ export async function createFenceLine(propertyId: number, input: FenceLineInput,
         name: input.name,
         status: input.status,
         wire_spec: JSON.stringify(input.wireSpec),
-        ...geometryColumns(input.coordinates),
+        ...geometryColumns(usableFenceCoordinates(input.coordinates)),
         created_by: userId,
         created_at: now,
         updated_at: now,
@@ -97,7 +110,7 @@ export async function updateFenceLine(
         name: merged.name,
         status: merged.status,
         wire_spec: JSON.stringify(merged.wireSpec),
-        ...geometryColumns(merged.coordinates),
+        ...geometryColumns(usableFenceCoordinates(merged.coordinates)),
         version: changes.version + 1,
         updated_at: new Date().toISOString(),
       });

@@ -8,7 +8,7 @@ import { getPropertySettings, updatePropertySettings } from '../../../../lib/ser
 const priceItemSchema = z.object({
   code: z.string().trim().min(1).max(60),
   description: z.string().trim().max(200).default(''),
-  unit: z.enum(['each', 'm', 'roll', 'kg', 'day']),
+  unit: z.enum(['each', 'm', 'roll', 'kg']),
   unitPriceCents: z.number().int().min(0).max(100_000_000),
   supplierNote: z.string().trim().max(200).default(''),
 });

@@ -1,0 +1,176 @@
+// The demo scenario end to end: terrain run → fence lines → crossings → designs, through the API.
+import { readFileSync } from 'node:fs';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { closeServerDb, rowCounts, signedInClient, type TestClient } from '../helpers/api-client';
+
+type Summary = { id: number; fenceLineId: number; fenceName: string; kind: string; angleDeg: number; angleClass: string; designStatus: string; provisional: boolean; chainageM: number };
+type Feature = { properties: Summary; geometry: { coordinates: [number, number] } };
+
+const manifest = JSON.parse(readFileSync('data-samples/saltbush-rise.json', 'utf8')) as {
+  fenceLines: { name: string; pointsLonLat: [number, number][]; crossing: { pointLonLat: [number, number]; constructedAngleDeg: number } }[];
+};
+const ifd = JSON.parse(readFileSync('data-samples/saltbush-rise-ifd.json', 'utf8')) as Record<string, unknown>;
+const prices = JSON.parse(readFileSync('data-samples/saltbush-rise-prices.json', 'utf8')) as { items: unknown[] };
+
+let manager: TestClient;
+let propertyId = 0;
+const fenceIds = new Map<string, number>();
+
+const metresBetween = ([lon1, lat1]: [number, number], [lon2, lat2]: [number, number]) =>
+  Math.hypot((lon2 - lon1) * 111_320 * Math.cos((lat1 * Math.PI) / 180), (lat2 - lat1) * 110_900);
+
+async function crossings(): Promise<Feature[]> {
+  return (await manager.json<{ features: Feature[] }>('GET', `/api/properties/${propertyId}/crossings`)).body.features;
+}
+
+/** The crossing found nearest the place the demo generator built the fence across the creek. */
+async function constructedCrossing(name: string): Promise<Feature & { offsetM: number }> {
+  const target = manifest.fenceLines.find((f) => f.name === name)!.crossing.pointLonLat;
+  const own = (await crossings()).filter((f) => f.properties.fenceLineId === fenceIds.get(name) && f.properties.kind !== 'runs-along');
+  const nearest = own.reduce((a, b) => (metresBetween(b.geometry.coordinates, target) < metresBetween(a.geometry.coordinates, target) ? b : a));
+  return { ...nearest, offsetM: metresBetween(nearest.geometry.coordinates, target) };
+}
+
+beforeAll(async () => {
+  manager = (await signedInClient('crossings-manager')).client;
+  propertyId = (await manager.json<{ property: { id: number } }>('POST', '/api/properties', { name: 'Saltbush Rise (crossings)', crs: 'EPSG:7854' })).body.property.id;
+  await manager.json('PATCH', `/api/properties/${propertyId}/settings`, { version: 0, ifdTable: ifd, priceList: prices.items });
+  const upload = await manager.request('POST', `/api/properties/${propertyId}/elevation-models?name=dem.tif`, new Uint8Array(readFileSync('data-samples/saltbush-rise-dem.tif')), { 'Content-Type': 'image/tiff' });
+  const runId = ((await upload.json()) as { run: { id: number } }).run.id;
+  for (let i = 0; i < 300; i++) {
+    const { body } = await manager.json<{ run: { status: string } }>('GET', `/api/properties/${propertyId}/terrain-runs/${runId}`);
+    if (body.run.status === 'succeeded') break;
+    await new Promise((resolve) => setTimeout(resolve, 100));
+  }
+  for (const fence of manifest.fenceLines) {
+    const { body } = await manager.json<{ fenceLine: { id: number } }>('POST', `/api/properties/${propertyId}/fence-lines`, { name: fence.name, coordinates: fence.pointsLonLat });
+    fenceIds.set(fence.name, body.fenceLine.id);
+  }
+}, 90_000);
+afterAll(closeServerDb);
+
+describe('crossings of the demo subdivision', () => {
+  it.each(manifest.fenceLines.map((f) => [f.name, f.crossing.constructedAngleDeg] as const))(
+    '%s crosses its creek where it was built, at %i° within 4°',
+    async (name, constructedDeg) => {
+      const found = await constructedCrossing(name);
+      // Drainage lines follow 5 m cell centres and are lightly simplified: within 15 m of the built point.
+      expect(found.offsetM).toBeLessThan(15);
+      expect(Math.abs(found.properties.angleDeg - constructedDeg)).toBeLessThan(4);
+      expect(found.properties.designStatus).toBe('designed');
+    },
+  );
+
+  it('classifies by the default tolerance: square is good, 60° fair, 35° poor', async () => {
+    expect((await constructedCrossing('North cross fence')).properties.angleClass).toBe('good');
+    expect((await constructedCrossing('East paddock fence')).properties.angleClass).toBe('fair');
+    expect((await constructedCrossing('South cross fence')).properties.angleClass).toBe('poor');
+  });
+
+  it('designs each with its end strainers on dry ground and the cautions (rules of thumb: common practice)', async () => {
+    for (const fence of manifest.fenceLines) {
+      const { id } = (await constructedCrossing(fence.name)).properties;
+      const { body } = await manager.json<{ crossing: { design: { layout: { endStrainers: { onDryGround: boolean }[]; wires: { mustBePlain: boolean; kind: string }[] }; cautions: string[]; floods: { chosen: string } } } }>(
+        'GET',
+        `/api/properties/${propertyId}/crossings/${id}`,
+      );
+      const { layout, cautions, floods } = body.crossing.design;
+      expect(layout.endStrainers.every((s) => s.onDryGround), fence.name).toBe(true);
+      expect(layout.wires.filter((w) => w.mustBePlain).every((w) => w.kind === 'plain')).toBe(true);
+      expect(cautions.join(' ')).toMatch(/floodwater/i);
+      expect(floods.chosen).toBe('rainfall');
+    }
+  });
+});
+
+describe('crossing inputs', () => {
+  it('uses a flood mark at once when one is entered, keeping the rainfall figures', async () => {
+    const { id } = (await constructedCrossing('North cross fence')).properties;
+    const { status, body } = await manager.json<{ crossing: { inputs: { floodMarkM: number }; design: { floods: { chosen: string; maxDepthM: number; fromRainfall: unknown } } } }>(
+      'PATCH',
+      `/api/properties/${propertyId}/crossings/${id}`,
+      { floodMarkM: 1.4 },
+    );
+    expect(status).toBe(200);
+    expect(body.crossing.inputs.floodMarkM).toBe(1.4);
+    expect(body.crossing.design.floods.chosen).toBe('mark');
+    expect(body.crossing.design.floods.maxDepthM).toBeCloseTo(1.4, 6);
+    expect(body.crossing.design.floods.fromRainfall).not.toBeNull();
+  });
+
+  it.each([
+    ['n = 0', { channelN: 0 }, 'channelN', /Manning's n below 0.01/],
+    ['C above 1', { runoffCoefficient: 1.5 }, 'runoffCoefficient', /more water runs off than falls/],
+    ['a negative freeboard', { freeboardM: -0.2 }, 'freeboardM', /cannot be negative/],
+    ['an unknown field', { depth: 3 }, '_', /Unrecognized key/],
+  ])('refuses %s with 422 and changes nothing', async (_label, change, field, message) => {
+    const { id } = (await constructedCrossing('East paddock fence')).properties;
+    const before = await manager.json<{ crossing: { inputs: unknown; computedAt: string } }>('GET', `/api/properties/${propertyId}/crossings/${id}`);
+    const answer = await manager.json<{ fields: Record<string, string> }>('PATCH', `/api/properties/${propertyId}/crossings/${id}`, change);
+    expect(answer.status).toBe(422);
+    expect(answer.body.fields[field]).toMatch(message);
+    const after = await manager.json<{ crossing: { inputs: unknown; computedAt: string } }>('GET', `/api/properties/${propertyId}/crossings/${id}`);
+    expect(after.body.crossing).toEqual(before.body.crossing);
+  });
+
+  it('says so when the AEP asked for is not in the property’s IFD table', async () => {
+    const { id } = (await constructedCrossing('East paddock fence')).properties;
+    const { body } = await manager.json<{ crossing: { designStatus: string; design: { problem: string } } }>('PATCH', `/api/properties/${propertyId}/crossings/${id}`, { aepPercent: 0.5 });
+    expect(body.crossing.designStatus).toBe('needs-input');
+    expect(body.crossing.design.problem).toMatch(/AEP 0.5 % is not in/);
+    await manager.json('PATCH', `/api/properties/${propertyId}/crossings/${id}`, { aepPercent: null });
+  });
+});
+
+describe('realignment', () => {
+  it('previews a dog-leg that squares the 35° crossing, and accepting it leaves a square crossing', async () => {
+    const { id } = (await constructedCrossing('South cross fence')).properties;
+    const preview = await manager.json<{ realignment: { fenceLine: { version: number }; suggestion: { ok: boolean; newAngleDeg: number; addedLengthM: number } } }>(
+      'GET',
+      `/api/properties/${propertyId}/crossings/${id}/realignment`,
+    );
+    expect(preview.body.realignment.suggestion.ok).toBe(true);
+    expect(preview.body.realignment.suggestion.newAngleDeg).toBeCloseTo(90, 0);
+    expect(preview.body.realignment.suggestion.addedLengthM).toBeGreaterThan(0);
+    const accepted = await manager.json<{ fenceLine: { version: number } }>('POST', `/api/properties/${propertyId}/crossings/${id}/realignment`, { version: preview.body.realignment.fenceLine.version });
+    expect(accepted.status).toBe(200);
+    const after = await constructedCrossing('South cross fence');
+    expect(after.properties.angleDeg).toBeGreaterThan(80);
+    const stale = await manager.json<{ error: string }>('POST', `/api/properties/${propertyId}/crossings/${after.properties.id}/realignment`, { version: 1 });
+    expect(stale.status).toBe(409);
+  });
+});
+
+describe('fence lines that cannot be used', () => {
+  it('drops a repeated vertex (a double click) and refuses a line that crosses itself', async () => {
+    const doubled = await manager.json<{ fenceLine: { coordinates: number[][] } }>('POST', `/api/properties/${propertyId}/fence-lines`, {
+      name: 'Double click',
+      coordinates: [[141.64, -31.44], [141.645, -31.44], [141.645, -31.44], [141.65, -31.441]],
+    });
+    expect(doubled.status).toBe(201);
+    expect(doubled.body.fenceLine.coordinates).toHaveLength(3);
+    const before = await rowCounts('fence_lines');
+    const crossed = await manager.json<{ fields: Record<string, string> }>('POST', `/api/properties/${propertyId}/fence-lines`, {
+      name: 'Figure eight',
+      coordinates: [[141.64, -31.44], [141.65, -31.45], [141.65, -31.44], [141.64, -31.45]],
+    });
+    expect(crossed.status).toBe(422);
+    expect(crossed.body.fields.coordinates).toMatch(/cross/i);
+    expect(await rowCounts('fence_lines')).toEqual(before);
+  });
+});
+
+describe('materials and cost', () => {
+  it('prices every fence line from the price list, with a CSV of the same', async () => {
+    const { body } = await manager.json<{ costs: { fenceLines: { name: string; priced: { totalCents: number; complete: boolean } }[]; totals: { totalCents: number; complete: boolean } } }>(
+      'GET',
+      `/api/properties/${propertyId}/costs`,
+    );
+    expect(body.costs.totals.totalCents).toBeGreaterThan(0);
+    expect(body.costs.totals.complete).toBe(true);
+    const csv = await (await manager.request('GET', `/api/properties/${propertyId}/materials.csv`)).text();
+    const [header, ...rows] = csv.trim().split('\n');
+    expect(header).toBe('fence_line,code,description,unit,quantity,unit_price,total');
+    expect(rows.some((row) => row.startsWith('North cross fence,STRAINER_ASSEMBLY'))).toBe(true);
+  });
+});
