@@ -13,6 +13,7 @@
  */
 import { performance } from 'node:perf_hooks';
 import { cpuUsage, resourceUsage } from 'node:process';
+import { designCrossing } from '../src/lib/crossings/design-crossing';
 import {
   buildDrainageIndex,
   findCrossings,
@@ -30,7 +31,43 @@ const drainageSegments = Number(process.argv[4] ?? 20_000);
  * work: floodgates, strainers, materials). Receives every crossing found; return anything.
  */
 type DesignStage = (result: CrossingsResult) => unknown;
-const designStage: DesignStage | null = null;
+
+/**
+ * Designs every crossing found, as the app does once profiles are sampled: each gets a ground
+ * profile of 1 m samples across a generated channel (trapezoid, deeper for higher stream order,
+ * on a gently sloping plain; invented) and its catchment figures, an IFD table and default
+ * settings. Profile sampling from the elevation model is timed in bench:terrain, not here.
+ */
+const designStage: DesignStage | null = (result) => {
+  const ifd = { aepPercent: [5, 1], durationsMin: [10, 60, 360, 1440], intensitiesMmH: [[95, 39, 11.5, 4.5], [137, 56, 16.6, 6.5]] };
+  const fence = { wireHeightsM: [0.2, 0.4, 0.6, 0.8, 1.05], wireKinds: ['plain', 'plain', 'plain', 'barbed', 'barbed'] as ('plain' | 'barbed')[], plainWireTypeId: 'ht-2.50-plain', barbedWireTypeId: 'lt-12.5ga-barbed-2strand', postSpacingM: 10, dropperSpacingM: 2.5 };
+  const statuses = new Map<string, number>();
+  for (const crossing of result.crossings) {
+    if (crossing.kind !== 'crossing') continue;
+    const depthM = 0.5 + 0.5 * (crossing.streamOrder ?? 1);
+    const bedHalfM = 1 + (crossing.streamOrder ?? 1);
+    const profile = [];
+    for (let chainageM = 0; chainageM <= 300; chainageM += 1) {
+      const offset = Math.abs(chainageM - 150) * Math.sin((crossing.crossingAngleDeg * Math.PI) / 180);
+      const elevationM = offset <= bedHalfM ? 100 : offset <= bedHalfM + 2 * depthM ? 100 + (offset - bedHalfM) / 2 : 100 + depthM + (offset - bedHalfM - 2 * depthM) * 0.003;
+      profile.push({ chainageM, elevationM });
+    }
+    const areaKm2 = Math.max(0.05, (crossing.upstreamAreaM2 ?? 50_000) / 1e6);
+    const design = designCrossing({
+      profile,
+      crossingChainageM: 150,
+      crossingAngleDeg: crossing.crossingAngleDeg,
+      channelSlope: 0.002,
+      catchment: { areaKm2, mainStreamLengthKm: 1.5 * Math.sqrt(areaKm2), equalAreaSlopeMPerKm: 2 },
+      ifd,
+      fence,
+      inputs: {},
+      settings: {},
+    });
+    statuses.set(design.status, (statuses.get(design.status) ?? 0) + 1);
+  }
+  return statuses;
+};
 
 /** mulberry32: a small seeded PRNG, uniform in [0, 1). */
 function makeRandom(seedValue: number): () => number {
@@ -112,21 +149,21 @@ console.log(
     `${fences.length} fence lines, ${fenceKm} km, ${fenceVertices - fences.length} segments`,
 );
 
-function run(): { indexMs: number; findMs: number; designMs: number; cpuMs: number; result: CrossingsResult } {
+function run(): { indexMs: number; findMs: number; designMs: number; cpuMs: number; result: CrossingsResult; designed: unknown } {
   const cpu = cpuUsage();
   const t0 = performance.now();
   const index = buildDrainageIndex(drainage);
   const t1 = performance.now();
   const result = findCrossings(fences, index);
   const t2 = performance.now();
-  if (designStage !== null) designStage(result);
+  const designed = designStage === null ? null : designStage(result);
   const t3 = performance.now();
   const used = cpuUsage(cpu);
-  return { indexMs: t1 - t0, findMs: t2 - t1, designMs: t3 - t2, cpuMs: (used.user + used.system) / 1000, result };
+  return { indexMs: t1 - t0, findMs: t2 - t1, designMs: t3 - t2, cpuMs: (used.user + used.system) / 1000, result, designed };
 }
 
 const report = (label: string, r: ReturnType<typeof run>): void => {
-  const design = designStage === null ? '' : `, design ${r.designMs.toFixed(0)} ms`;
+  const design = designStage === null ? '' : `; design all ${r.designMs.toFixed(0)} ms (${JSON.stringify(Object.fromEntries(r.designed as Map<string, number>))})`;
   console.log(
     `${label}: index ${r.indexMs.toFixed(0)} ms + find and classify ${r.findMs.toFixed(0)} ms = ` +
       `${(r.indexMs + r.findMs).toFixed(0)} ms${design} (CPU ${r.cpuMs.toFixed(0)} ms)`,
