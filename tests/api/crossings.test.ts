@@ -160,6 +160,30 @@ describe('fence lines that cannot be used', () => {
   });
 });
 
+describe('fences at the edge of the elevation model', () => {
+  it('designs what it can of a fence that runs off the model and crosses the creek by its edge, saying what it could not check', async () => {
+    // From 300 m west of the model to inside it, 20 m north of its south edge, across the main creek
+    // where it leaves the model (extent and creek in data-samples/saltbush-rise.json).
+    const south = -31.4531803 + 20 / 110_900;
+    const created = await manager.json<{ fenceLine: { id: number } }>('POST', `/api/properties/${propertyId}/fence-lines`, {
+      name: 'Edge fence',
+      coordinates: [[141.6313144 - 300 / 95_000, south], [141.6560, south]],
+    });
+    expect(created.status).toBe(201);
+    const own = (await crossings()).filter((f) => f.properties.fenceLineId === created.body.fenceLine.id);
+    expect(own.length).toBeGreaterThan(0);
+    for (const feature of own) expect(['designed', 'needs-input', 'no-channel', 'failed', 'runs-along', 'touch']).toContain(feature.properties.designStatus);
+    const details = await Promise.all(
+      own.map((f) => manager.json<{ crossing: { designStatus: string; provisional: boolean; design: { problem?: string; warnings?: string[] } } }>('GET', `/api/properties/${propertyId}/crossings/${f.properties.id}`)),
+    );
+    for (const { status, body } of details) {
+      expect(status).toBe(200);
+      const said = body.crossing.design.problem ?? (body.crossing.design.warnings ?? []).join(' ');
+      if (body.crossing.designStatus !== 'designed' || body.crossing.provisional) expect(said.length).toBeGreaterThan(10);
+    }
+  });
+});
+
 describe('materials and cost', () => {
   it('prices every fence line from the price list, with a CSV of the same', async () => {
     const { body } = await manager.json<{ costs: { fenceLines: { name: string; priced: { totalCents: number; complete: boolean } }[]; totals: { totalCents: number; complete: boolean } } }>(
