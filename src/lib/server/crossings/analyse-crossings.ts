@@ -72,6 +72,8 @@ async function analyse(propertyId: number, fenceLineIds?: number[]): Promise<{ c
     const own = found.crossings.filter((crossing) => crossing.fenceId === fence.id);
     const profile = own.some((crossing) => crossing.kind === 'crossing') ? await fenceProfile(propertyId, fence) : null;
     for (const crossing of own) {
+      // Each design is a few milliseconds of arithmetic; between them the server answers others.
+      await new Promise((resolve) => setImmediate(resolve));
       const inputs = inputsFor(crossing);
       const design =
         crossing.kind === 'crossing' && profile
