@@ -12,6 +12,12 @@ export default defineConfig({
   trustHost: true,
   session: { strategy: 'jwt', maxAge: 14 * 24 * 60 * 60 },
   pages: { signIn: '/sign-in', error: '/sign-in' },
+  // A wrong password is an everyday event, counted by the sign-in throttle: not an error to log.
+  logger: {
+    error(error) {
+      if (error.name !== 'CredentialsSignin') console.error(`[auth] ${error.name}: ${error.message}`);
+    },
+  },
   providers: [
     Credentials({
       credentials: { email: { label: 'E-mail' }, password: { label: 'Password', type: 'password' } },
