@@ -1,7 +1,7 @@
 import 'maplibre-gl/dist/maplibre-gl.css';
 import { useEffect, useId, useMemo, useRef, useState, type ReactNode } from 'react';
 import Map, { Layer, NavigationControl, ScaleControl, Source, useMap, type MapRef } from 'react-map-gl/maplibre';
-import type { LngLatBoundsLike, Map as MaplibreMap, MapMouseEvent } from 'maplibre-gl';
+import type { LngLatBoundsLike, MapGeoJSONFeature, Map as MaplibreMap, MapMouseEvent } from 'maplibre-gl';
 import { createExtentFeatures, toUsableExtent } from './extent';
 import { graticuleBboxFor, type BboxWgs84 } from './graticule';
 import { PROPERTY_EXTENT_SOURCE_ID, propertyExtentLayers } from './layers';
@@ -21,6 +21,10 @@ export type PropertyMapProps = {
   extentWgs84: [number, number, number, number] | null;
   /** Sources and layers drawn over the base map (terrain, drainage lines, …). */
   children?: ReactNode;
+  /** Layers whose features a click or tap picks (the pointer turns into a hand over them). */
+  interactiveLayerIds?: readonly string[];
+  /** Called with the topmost feature of `interactiveLayerIds` under a click or tap. */
+  onFeatureClick?: (feature: MapGeoJSONFeature) => void;
 };
 
 /** Mainland Australia: with no extent the map frames it, which centres on inland country. */
@@ -60,10 +64,12 @@ function extentFromKey(key: string): BboxWgs84 | null {
  * navigation and metric scale controls, and a readout of the pointer's coordinates.
  * Used from Astro as `<PropertyMap client:only="react" … />`; it fills its parent's box.
  */
-export default function PropertyMap({ propertyName, extentWgs84, children }: PropertyMapProps) {
+export default function PropertyMap({ propertyName, extentWgs84, children, interactiveLayerIds, onFeatureClick }: PropertyMapProps) {
   const mapRef = useRef<MapRef>(null);
   const messageId = useId();
   const [loaded, setLoaded] = useState(false);
+  const [overFeature, setOverFeature] = useState(false);
+  const layerIds = useMemo(() => (interactiveLayerIds ? [...interactiveLayerIds] : undefined), [interactiveLayerIds]);
 
   // Memos are keyed on the numbers, not the array, so a re-render with an equal extent is free.
   const extentKey = extentKeyOf(toUsableExtent(extentWgs84));
@@ -113,6 +119,17 @@ export default function PropertyMap({ propertyName, extentWgs84, children }: Pro
         mapStyle={mapStyle}
         initialViewState={initialViewState}
         onLoad={() => setLoaded(true)}
+        interactiveLayerIds={layerIds}
+        onClick={
+          onFeatureClick &&
+          ((event) => {
+            const feature = event.features?.[0];
+            if (feature) onFeatureClick(feature);
+          })
+        }
+        onMouseEnter={layerIds && (() => setOverFeature(true))}
+        onMouseLeave={layerIds && (() => setOverFeature(false))}
+        cursor={overFeature ? 'pointer' : undefined}
         maxZoom={18}
         renderWorldCopies={false}
         // Everything on this map is Gullyline's own; there is no third-party data to attribute.

@@ -1,9 +1,16 @@
-import { useQuery } from '@tanstack/react-query';
-import { useEffect, useMemo, useRef, useState, type ReactNode } from 'react';
+import { useQuery, useQueryClient } from '@tanstack/react-query';
+import type { MapGeoJSONFeature } from 'maplibre-gl';
+import { useCallback, useEffect, useMemo, useRef, useState, type ReactNode } from 'react';
 import { api } from '../../lib/client/api';
+import type { CrossingSummaryView, LonLat } from '../../lib/schemas/crossing-view';
+import { FENCE_STATUSES, type FenceLine } from '../../lib/schemas/plan';
+import PlanOverlay, { CROSSING_INTERACTIVE_LAYER_IDS } from '../map/PlanOverlay';
 import PropertyMap from '../map/PropertyMap';
 import TerrainOverlay, { type TerrainRunLayer, type TerrainVisibility } from '../map/TerrainOverlay';
 import { withQueryClient } from '../QueryRoot';
+import CrossingDetail, { crossingDetailQuery, type RealignmentPreview } from './CrossingDetail';
+import CrossingsPanel from './CrossingsPanel';
+import { FENCE_STATUS_STYLES, LAYOUT_MIN_ZOOM, LAYOUT_VIEW_ZOOM } from '../map/plan-layers';
 import LayerToggles from './LayerToggles';
 import TerrainPanel from './TerrainPanel';
 
@@ -16,8 +23,21 @@ type Props = {
   children?: ReactNode;
 };
 
-/** The property workspace: the map with its terrain layers, and the side panels. */
+/** After a terrain run, crossings are analysed again for up to this long; the list polls meanwhile. */
+const ANALYSIS_WAIT_MS = 60_000;
+
+const isWideScreen = () => window.matchMedia('(min-width: 768px)').matches;
+
+/** Where the map goes for a crossing: close enough for a designed one's layout to show. */
+const focusOn = (position: number[], crossing: CrossingSummaryView) => ({
+  position: [position[0]!, position[1]!] as LonLat,
+  zoom: crossing.designStatus === 'designed' ? LAYOUT_VIEW_ZOOM : LAYOUT_MIN_ZOOM,
+  seq: Date.now(),
+});
+
+/** The property workspace: the map with its terrain and plan layers, and the side panels. */
 function Workspace({ propertyId, propertyName, extentWgs84, canEdit, children }: Props) {
+  const queryClient = useQueryClient();
   const models = useQuery({
     queryKey: ['elevation-models', propertyId],
     queryFn: () => api.listElevationModels(propertyId).then((r) => r.elevationModels),
@@ -28,6 +48,89 @@ function Workspace({ propertyId, propertyName, extentWgs84, canEdit, children }:
   const currentRunIds = (models.data ?? []).map((m) => m.currentRun?.id ?? 0).join(',');
   const drainage = useQuery({ queryKey: ['drainage-lines', propertyId, currentRunIds], queryFn: () => api.drainageLines(propertyId) });
   const [visible, setVisible] = useState<TerrainVisibility>({ hillshade: true, contours: true, drainage: true });
+
+  // The newest finished run: the server designs the crossings again just after it.
+  const lastRunFinishedAt = (models.data ?? []).reduce<string | null>((latest, m) => {
+    const finished = m.currentRun?.finishedAt ?? null;
+    return finished && (!latest || finished > latest) ? finished : latest;
+  }, null);
+
+  const fenceLines = useQuery({
+    queryKey: ['fence-lines', propertyId],
+    queryFn: () => api.listFenceLines(propertyId).then((r) => r.fenceLines),
+  });
+  const crossings = useQuery({
+    queryKey: ['crossings', propertyId, currentRunIds],
+    queryFn: () => api.listCrossings(propertyId),
+    // Poll briefly after a run finishes, until the crossings analysed after it arrive.
+    refetchInterval: (query) => {
+      if (!lastRunFinishedAt || Date.now() - Date.parse(lastRunFinishedAt) > ANALYSIS_WAIT_MS) return false;
+      const newest = (query.state.data?.features ?? []).reduce((latest, f) => Math.max(latest, Date.parse(f.properties.computedAt ?? '') || 0), 0);
+      return newest >= Date.parse(lastRunFinishedAt) ? false : 1500;
+    },
+  });
+  const crossingList = useMemo<CrossingSummaryView[]>(() => (crossings.data?.features ?? []).map((feature) => feature.properties), [crossings.data]);
+
+  const [selectedId, setSelectedId] = useState<number | null>(null);
+  const [revealSeq, setRevealSeq] = useState(0);
+  const mapSectionRef = useRef<HTMLElement>(null);
+  const [focus, setFocus] = useState<{ position: LonLat; zoom: number; seq: number } | null>(null);
+  const [realignment, setRealignment] = useState<RealignmentPreview | null>(null);
+  const [notice, setNotice] = useState<string | null>(null);
+  const selected = crossingList.find((crossing) => crossing.id === selectedId) ?? null;
+  const selectedPosition = crossings.data?.features.find((feature) => feature.properties.id === selectedId)?.geometry.coordinates ?? null;
+
+  // The selected crossing's design (shared with the detail panel's query) gives the layout points.
+  const detail = useQuery({
+    ...crossingDetailQuery(propertyId, selected?.id ?? 0, selected?.computedAt ?? null),
+    enabled: selected !== null,
+  });
+  const layoutPoints = (detail.data?.design && 'positions' in detail.data.design ? detail.data.design.positions : null) ?? null;
+
+  const select = useCallback(
+    (crossingId: number, from: 'list' | 'map') => {
+      setSelectedId(crossingId);
+      setNotice(null);
+      setRealignment((preview) => (preview?.crossingId === crossingId ? preview : null));
+      // Side by side the panel scrolls to the detail. On a phone the detail opens right under the
+      // map: from the list the page goes back up to the map, from the map it stays where it is.
+      if (isWideScreen()) setRevealSeq((seq) => seq + 1);
+      else if (from === 'list') mapSectionRef.current?.scrollIntoView({ block: 'start', behavior: 'smooth' });
+      if (from === 'list') {
+        const feature = crossings.data?.features.find((f) => f.properties.id === crossingId);
+        if (feature) setFocus(focusOn(feature.geometry.coordinates, feature.properties));
+      }
+    },
+    [crossings.data],
+  );
+
+  const onFeatureClick = useCallback(
+    (feature: MapGeoJSONFeature) => {
+      const id = Number(feature.properties?.id);
+      if (Number.isInteger(id)) select(id, 'map');
+    },
+    [select],
+  );
+
+  const onRealigned = useCallback(
+    async (fenceLine: FenceLine) => {
+      const before = selected;
+      await queryClient.invalidateQueries({ queryKey: ['fence-lines', propertyId] });
+      const refreshed = await crossings.refetch();
+      // The crossing is found again on the new line; keep it selected (nearest along the same drainage line).
+      const again = (refreshed.data?.features ?? [])
+        .map((feature) => feature.properties)
+        .filter((c) => c.fenceLineId === fenceLine.id && before && c.drainageLineId === before.drainageLineId)
+        .sort((a, b) => Math.abs(a.chainageM - (before?.chainageM ?? 0)) - Math.abs(b.chainageM - (before?.chainageM ?? 0)))[0];
+      setSelectedId(again?.id ?? null);
+      setNotice(
+        again
+          ? `${fenceLine.name} now crosses here at ${again.angleDeg === null ? 'a new angle' : `${Math.round(again.angleDeg)}°`}; the crossing was designed again.`
+          : `${fenceLine.name} has its new shape; its crossings were found and designed again.`,
+      );
+    },
+    [crossings, propertyId, queryClient, selected],
+  );
 
   const runs = useMemo<TerrainRunLayer[]>(
     () =>
@@ -50,34 +153,137 @@ function Workspace({ propertyId, propertyName, extentWgs84, canEdit, children }:
     announced.current = currentRunIds;
   }, [currentRunIds]);
 
+  const fenceStatuses = FENCE_STATUSES.filter((status) => (fenceLines.data ?? []).some((fence) => fence.status === status));
+  const showKey = runs.length > 0 || fenceStatuses.length > 0 || crossingList.length > 0;
+
   return (
-    <div className="flex min-h-0 flex-1 flex-col md:flex-row">
-      <section className="relative min-h-[55vh] flex-1 md:min-h-0" aria-label="Map of the property">
-        <PropertyMap propertyName={propertyName} extentWgs84={extent}>
+    // On a phone the map and the panels scroll as one page; side by side each keeps its own height.
+    <div className="flex min-h-0 flex-1 flex-col overflow-y-auto md:flex-row md:overflow-hidden">
+      <section ref={mapSectionRef} className="relative min-h-[55vh] flex-1 md:min-h-0" aria-label="Map of the property">
+        <PropertyMap
+          propertyName={propertyName}
+          extentWgs84={extent}
+          interactiveLayerIds={CROSSING_INTERACTIVE_LAYER_IDS}
+          onFeatureClick={onFeatureClick}
+        >
           <TerrainOverlay propertyId={propertyId} runs={runs} drainage={drainage.data ?? null} visible={visible} underExtent={extent !== null} />
+          <PlanOverlay
+            fenceLines={fenceLines.data ?? null}
+            crossings={crossings.data ?? null}
+            selectedCrossingId={selectedId}
+            layoutPoints={layoutPoints}
+            realignment={realignment}
+            focus={focus}
+          />
         </PropertyMap>
-        {runs.length > 0 && <LayerToggles visible={visible} onChange={setVisible} />}
+        {showKey && (
+          <LayerToggles
+            visible={visible}
+            onChange={setVisible}
+            showTerrain={runs.length > 0}
+            fenceStatuses={fenceStatuses}
+            showCrossings={crossingList.length > 0}
+            showRealignment={realignment !== null}
+          />
+        )}
       </section>
       <aside
-        className="flex w-full flex-col gap-4 overflow-y-auto border-t border-sand-200 bg-sand-50 p-4 md:w-96 md:border-l md:border-t-0"
+        className="flex w-full shrink-0 flex-col gap-4 border-t border-sand-200 bg-sand-50 p-4 md:w-96 md:shrink md:overflow-y-auto md:border-l md:border-t-0 lg:w-[28rem]"
         aria-label="Property panels"
         data-testid="workspace-panels"
       >
         <p className="sr-only" role="status">{announcement}</p>
+        {selected && (
+          // On a phone the open crossing comes first, right under the map.
+          <div className="order-first md:order-none">
+            <CrossingDetail
+              key={selected.id}
+              propertyId={propertyId}
+              summary={selected}
+              canEdit={canEdit}
+              onClose={() => {
+                setSelectedId(null);
+                setRealignment(null);
+                setNotice(null);
+              }}
+              notice={notice}
+              onShowOnMap={() => selectedPosition && setFocus(focusOn(selectedPosition, selected))}
+              realignment={realignment?.crossingId === selected.id ? realignment : null}
+              onRealignmentChange={(preview) => {
+                setRealignment(preview);
+                // Close enough to see the dog-leg beside the old line.
+                if (preview && selectedPosition) setFocus({ ...focusOn(selectedPosition, selected), zoom: LAYOUT_VIEW_ZOOM });
+              }}
+              onRealigned={onRealigned}
+              revealSeq={revealSeq}
+            />
+          </div>
+        )}
         <TerrainPanel propertyId={propertyId} canEdit={canEdit} models={models.data ?? []} loading={models.isPending} />
-        <section className="card p-4" aria-labelledby="fences-heading">
-          <h2 id="fences-heading" className="font-bold">Fence lines</h2>
-          <p className="mt-1 text-sm text-bark-700">No fence lines yet.</p>
-        </section>
-        <section className="card p-4" aria-labelledby="crossings-heading">
-          <h2 id="crossings-heading" className="font-bold">Crossings</h2>
-          <p className="mt-1 text-sm text-bark-700">
-            Every place a fence line meets a drainage line will be listed here with its crossing angle and design.
-          </p>
-        </section>
+        <FenceLinesSummary fenceLines={fenceLines.data ?? []} loading={fenceLines.isPending} error={fenceLines.error} crossings={crossingList} />
+        <CrossingsPanel
+          crossings={crossingList}
+          fenceLines={fenceLines.data ?? []}
+          loading={crossings.isPending}
+          error={crossings.error}
+          hasTerrain={runs.length > 0}
+          selectedId={selectedId}
+          onSelect={(id) => select(id, 'list')}
+        />
         {children}
       </aside>
     </div>
+  );
+}
+
+const kmFormat = new Intl.NumberFormat('en-AU', { minimumFractionDigits: 1, maximumFractionDigits: 1 });
+
+/** How many fence lines, how long in all, and each with its status and crossings. */
+function FenceLinesSummary({
+  fenceLines,
+  loading,
+  error,
+  crossings,
+}: {
+  fenceLines: FenceLine[];
+  loading: boolean;
+  error: Error | null;
+  crossings: CrossingSummaryView[];
+}) {
+  const totalKm = fenceLines.reduce((sum, fence) => sum + fence.lengthM, 0) / 1000;
+  return (
+    <section className="card p-4" aria-labelledby="fences-heading">
+      <h2 id="fences-heading" className="font-bold">Fence lines</h2>
+      {loading ? (
+        <p className="mt-1 text-sm text-bark-700">Loading…</p>
+      ) : error ? (
+        <p className="alert-error mt-2 text-sm" role="alert">The fence lines could not be loaded: {error.message}</p>
+      ) : fenceLines.length === 0 ? (
+        <p className="mt-1 text-sm text-bark-700">No fence lines yet.</p>
+      ) : (
+        <>
+          <p className="mt-1 text-sm text-bark-700">
+            {fenceLines.length} {fenceLines.length === 1 ? 'fence line' : 'fence lines'}, {kmFormat.format(totalKm)} km in all.
+          </p>
+          <ul className="mt-2 flex flex-col divide-y divide-sand-200 text-sm">
+            {fenceLines.map((fence) => {
+              const count = crossings.filter((c) => c.fenceLineId === fence.id && c.kind !== 'runs-along').length;
+              return (
+                <li key={fence.id} className="flex items-center justify-between gap-2 py-1.5">
+                  <span className="min-w-0">
+                    <span className="block truncate font-semibold">{fence.name}</span>
+                    <span className="text-bark-700">
+                      {FENCE_STATUS_STYLES[fence.status].label} · {count} {count === 1 ? 'crossing' : 'crossings'}
+                    </span>
+                  </span>
+                  <span className="shrink-0 tabular-nums">{kmFormat.format(fence.lengthM / 1000)} km</span>
+                </li>
+              );
+            })}
+          </ul>
+        </>
+      )}
+    </section>
   );
 }
 

@@ -1,4 +1,12 @@
 import type { FeatureCollection } from 'geojson';
+import type {
+  CrossingCollection,
+  CrossingDetailView,
+  CrossingInputsChange,
+  FenceLinesResponse,
+  RealignmentView,
+} from '../schemas/crossing-view';
+import type { FenceLine } from '../schemas/plan';
 import type { Member, PropertySummary } from '../schemas/property';
 import type { ElevationModelView, TerrainRun } from '../schemas/terrain';
 
@@ -49,6 +57,19 @@ export const api = {
   startTerrainRun: (propertyId: number, elevationModelId: number, thresholdHa?: number) =>
     request<{ run: TerrainRun }>('POST', `/api/properties/${propertyId}/terrain-runs`, { elevationModelId, thresholdHa }),
   drainageLines: (propertyId: number) => request<FeatureCollection>('GET', `/api/properties/${propertyId}/drainage-lines`),
+  listFenceLines: (propertyId: number) => request<FenceLinesResponse>('GET', `/api/properties/${propertyId}/fence-lines`),
+  /** The property's crossings as a GeoJSON FeatureCollection of Points. */
+  listCrossings: (propertyId: number) => request<CrossingCollection>('GET', `/api/properties/${propertyId}/crossings`),
+  getCrossing: (propertyId: number, crossingId: number) =>
+    request<{ crossing: CrossingDetailView }>('GET', `/api/properties/${propertyId}/crossings/${crossingId}`),
+  /** Sets (a value) or clears (null) a crossing's inputs; the answer is the crossing designed again. */
+  setCrossingInputs: (propertyId: number, crossingId: number, changes: CrossingInputsChange) =>
+    request<{ crossing: CrossingDetailView }>('PATCH', `/api/properties/${propertyId}/crossings/${crossingId}`, changes),
+  getRealignment: (propertyId: number, crossingId: number) =>
+    request<{ realignment: RealignmentView }>('GET', `/api/properties/${propertyId}/crossings/${crossingId}/realignment`),
+  /** Accepts the previewed realignment; `version` is the fence line's version from the preview. */
+  acceptRealignment: (propertyId: number, crossingId: number, version: number) =>
+    request<{ fenceLine: FenceLine }>('POST', `/api/properties/${propertyId}/crossings/${crossingId}/realignment`, { version }),
 };
 
 export type UploadedElevationModel = { elevationModel: ElevationModelView; run: TerrainRun; warnings: string[] };
