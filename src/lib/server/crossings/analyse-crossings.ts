@@ -96,7 +96,8 @@ async function analyse(propertyId: number, fenceLineIds?: number[]): Promise<{ c
         chainage_m: crossing.fenceChainageM,
         angle_deg: crossing.crossingAngleDeg,
         angle_class: crossing.angleClass,
-        upstream_area_m2: crossing.upstreamAreaM2,
+        // The catchment traced at the crossing beats the drainage line's area interpolated by length.
+        upstream_area_m2: design?.catchment ? design.catchment.areaHa * 10_000 : crossing.upstreamAreaM2,
         stream_order: crossing.streamOrder,
         inputs: JSON.stringify(inputs),
         design: design ? JSON.stringify({ ...design, flowBearingDeg: crossing.flowBearingDeg, fenceSegmentIndex: crossing.fenceSegmentIndex, touchReason: crossing.touchReason }) : JSON.stringify({ flowBearingDeg: crossing.flowBearingDeg, fenceSegmentIndex: crossing.fenceSegmentIndex, touchReason: crossing.touchReason }),
