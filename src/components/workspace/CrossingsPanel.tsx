@@ -1,100 +1,11 @@
 import { useMemo, useState } from 'react';
-import type { AngleClass, CrossingSummaryView, DesignStatus } from '../../lib/schemas/crossing-view';
+import type { AngleClass, CrossingSummaryView } from '../../lib/schemas/crossing-view';
 import type { FenceLine } from '../../lib/schemas/plan';
-import { PLAN_COLOURS } from '../map/plan-layers';
+import { CrossingRow } from './crossing/CrossingRow';
+import { CrossingSymbol } from './crossing/CrossingSymbol';
 
-// ---- shared with the crossing detail and the map key ---------------------------------------
-
-export const ANGLE_CLASS_LABEL: Record<AngleClass, string> = { good: 'Good', fair: 'Fair', poor: 'Poor' };
-
-export const DESIGN_STATUS_LABEL: Record<DesignStatus, string> = {
-  designed: 'Designed',
-  'needs-input': 'Needs a flood mark',
-  'no-channel': 'No defined channel',
-  failed: 'Could not be designed',
-  touch: 'Only touches a drainage line',
-  'runs-along': 'Runs along a drainage line',
-  'no-terrain': 'No terrain under it yet',
-};
-
-const numberFormat = new Intl.NumberFormat('en-AU', { maximumFractionDigits: 0 });
-
-/** Metres along a fence line, e.g. "1,241 m". */
-export function formatChainage(chainageM: number): string {
-  return `${numberFormat.format(chainageM)} m`;
-}
-
-/** A number with a fixed count of decimals and its unit, or a dash when unknown. */
-export function formatValue(value: number | null | undefined, digits: number, unit: string): string {
-  if (value === null || value === undefined || !Number.isFinite(value)) return '—';
-  return `${value.toLocaleString('en-AU', { minimumFractionDigits: digits, maximumFractionDigits: digits })}${unit ? ` ${unit}` : ''}`;
-}
-
-/** Upstream area: whole hectares from 10 ha, one decimal below. */
-export function formatArea(areaHa: number | null | undefined): string {
-  if (areaHa === null || areaHa === undefined) return '—';
-  return formatValue(areaHa, areaHa >= 10 ? 0 : 1, 'ha');
-}
-
-/**
- * The crossing's map symbol, for the key and the list: a dot in the class colour (white rim),
- * with a dark ring for fair and poor and a "!" for poor; hollow when not designed.
- */
-export function CrossingSymbol({ angleClass, designed, size = 24 }: { angleClass: AngleClass | null; designed: boolean; size?: number }) {
-  const colour = angleClass ? PLAN_COLOURS.angle[angleClass] : PLAN_COLOURS.angleNone;
-  const ringed = angleClass === 'fair' || angleClass === 'poor';
-  return (
-    <svg aria-hidden="true" width={size} height={size} viewBox="0 0 24 24" className="shrink-0">
-      {ringed && <circle cx="12" cy="12" r="10.5" fill="none" stroke={PLAN_COLOURS.ink} strokeWidth="2" />}
-      <circle
-        cx="12"
-        cy="12"
-        r={designed ? 7.5 : 6.5}
-        fill={designed ? colour : PLAN_COLOURS.casing}
-        stroke={designed ? PLAN_COLOURS.casing : colour}
-        strokeWidth={designed ? 2 : 3.5}
-      />
-      {angleClass === 'poor' && (
-        <text
-          x="12"
-          y="16.6"
-          textAnchor="middle"
-          fontSize="13"
-          fontWeight="700"
-          fill={designed ? '#ffffff' : PLAN_COLOURS.ink}
-          stroke={designed ? PLAN_COLOURS.ink : 'none'}
-          strokeWidth="0.6"
-        >
-          !
-        </text>
-      )}
-    </svg>
-  );
-}
-
-/** The crossing angle with its class in words and symbol, e.g. "88° · Good". */
-export function AngleBadge({ crossing }: { crossing: Pick<CrossingSummaryView, 'angleDeg' | 'angleClass' | 'designStatus'> }) {
-  const { angleDeg, angleClass } = crossing;
-  return (
-    <span className="inline-flex items-center gap-1.5 font-semibold tabular-nums">
-      <CrossingSymbol angleClass={angleClass} designed={crossing.designStatus === 'designed'} size={22} />
-      {angleDeg === null ? 'No angle' : `${Math.round(angleDeg)}°`}
-      {angleClass && (
-        <span className="rounded-md border px-1.5 text-xs uppercase tracking-wide" style={badgeStyle(angleClass)}>
-          {ANGLE_CLASS_LABEL[angleClass]}
-        </span>
-      )}
-    </span>
-  );
-}
-
-/** Badge colours: the class colour as a border and a light wash, with dark text that reads in sun. */
-function badgeStyle(angleClass: AngleClass): React.CSSProperties {
-  const colour = PLAN_COLOURS.angle[angleClass];
-  return { borderColor: colour, backgroundColor: `${colour}26`, color: '#2b211a' };
-}
-
-// ---- the list ------------------------------------------------------------------------------
+// The map key (LayerToggles) draws its crossing symbols with this.
+export { CrossingSymbol };
 
 type SortKey = 'fence' | 'angle' | 'area';
 type ClassFilter = AngleClass | 'none';
@@ -244,37 +155,5 @@ export default function CrossingsPanel({ crossings, fenceLines, loading, error, 
         </>
       )}
     </section>
-  );
-}
-
-function CrossingRow({ crossing, selected, onSelect }: { crossing: CrossingSummaryView; selected: boolean; onSelect: (id: number) => void }) {
-  const status = DESIGN_STATUS_LABEL[crossing.designStatus] ?? crossing.designStatus;
-  const notes = [
-    crossing.kind === 'crosses-twice' ? 'crosses more than once here' : null,
-    crossing.designStatus === 'designed' && crossing.provisional ? 'provisional' : null,
-  ].filter(Boolean);
-  return (
-    <button
-      type="button"
-      data-testid="crossing-row"
-      aria-pressed={selected}
-      onClick={() => onSelect(crossing.id)}
-      className={`flex min-h-11 w-full flex-col gap-1 rounded-lg border px-3 py-2 text-left transition-colors hover:bg-sand-100 ${
-        selected ? 'border-bark-900 bg-sand-100 ring-2 ring-bark-900' : 'border-sand-300 bg-white'
-      }`}
-    >
-      <span className="flex w-full items-baseline justify-between gap-2">
-        <span className="font-semibold text-bark-900">{crossing.fenceName}</span>
-        <span className="shrink-0 text-sm tabular-nums text-bark-700">at {formatChainage(crossing.chainageM)}</span>
-      </span>
-      <span className="flex w-full flex-wrap items-center justify-between gap-x-3 gap-y-1 text-sm">
-        <AngleBadge crossing={crossing} />
-        <span className="text-bark-700">
-          {crossing.upstreamAreaHa !== null && <span className="tabular-nums">{formatArea(crossing.upstreamAreaHa)} · </span>}
-          <span className={crossing.designStatus === 'designed' ? 'font-semibold text-saltbush-700' : ''}>{status}</span>
-        </span>
-      </span>
-      {notes.length > 0 && <span className="text-xs text-bark-500">{notes.join(' · ')}</span>}
-    </button>
   );
 }
