@@ -9,7 +9,6 @@
  *   model, default options, `-compute_edges`, `-z 2 -az 90 -alt 30` and
  *   `-z 25 -az 200 -alt 60 -compute_edges`.
  */
-import { spawnSync } from 'node:child_process';
 import { mkdtempSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { dirname, join, resolve } from 'node:path';
@@ -17,8 +16,9 @@ import { fileURLToPath } from 'node:url';
 import fc from 'fast-check';
 import { fromFile } from 'geotiff';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { computeHillshade, computeSlope, uniformCellSize, type ElevationGrid } from '../../../src/lib/terrain/index';
+import { computeHillshade, computeSlope, type ElevationGrid } from '../../../src/lib/terrain/index';
 import { elevationModel, gridFromFunction, gridFromRows, toRows } from './helpers';
+import { readDemoModel, runGdal } from '../../helpers/gdal';
 
 const DEM_PATH = resolve(dirname(fileURLToPath(import.meta.url)), '../../../data-samples/saltbush-rise-dem.tif');
 const DEGREES_0_90 = fc.double({ min: 0, max: 90, noNaN: true });
@@ -204,18 +204,6 @@ describe('computeHillshade against GDAL gdaldem (Debian gdal-bin 3.6), Horn 1981
   }
 });
 
-/** The demo elevation model read with geotiff.js, −9999 turned into NaN. */
-async function readDemoModel(): Promise<ElevationGrid> {
-  const image = await (await fromFile(DEM_PATH)).getImage();
-  const raw = await readBand(DEM_PATH);
-  if (!(raw instanceof Float32Array)) throw new Error('expected a Float32 elevation model');
-  const nodata = image.getGDALNoData();
-  const data = raw.map((v) => (v === nodata ? Number.NaN : v));
-  const [sizeX] = image.getResolution();
-  const width = image.getWidth();
-  const height = image.getHeight();
-  return { width, height, data, ...uniformCellSize(width, height, sizeX!) };
-}
 
 /** The first band of a GeoTIFF, read with geotiff.js. */
 async function readBand(path: string): Promise<unknown> {
@@ -224,17 +212,3 @@ async function readBand(path: string): Promise<unknown> {
   return band;
 }
 
-/** Runs a GDAL tool; fails (never skips) with an install hint when GDAL is missing. */
-function runGdal(tool: string, args: readonly string[]): string {
-  const result = spawnSync(tool, args, { encoding: 'utf8' });
-  if (result.error) {
-    if ((result.error as NodeJS.ErrnoException).code === 'ENOENT') {
-      throw new Error(
-        `${tool} not found: install GDAL's command-line tools (Debian: apt-get install gdal-bin) to run the GDAL checks`,
-      );
-    }
-    throw result.error;
-  }
-  if (result.status !== 0) throw new Error(`${tool} ${args.join(' ')} failed: ${result.stderr}`);
-  return result.stdout;
-}

@@ -9,7 +9,6 @@
  * - Analytic case: bilinear interpolation reproduces a plane exactly.
  * - Chainage: the straight-line (Euclidean) length of each segment in EPSG:7854 metres, summed.
  */
-import { spawnSync } from 'node:child_process';
 import { mkdtempSync, readFileSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { dirname, join, resolve } from 'node:path';
@@ -22,11 +21,11 @@ import {
   cellCentre,
   sampleProfile,
   toCell,
-  uniformCellSize,
   type ElevationGrid,
   type GridTransform,
 } from '../../../src/lib/terrain/index';
 import { gridFromFunction, gridFromRows } from './helpers';
+import { readDemoModel, runGdal } from '../../helpers/gdal';
 
 const SAMPLES_DIR = resolve(dirname(fileURLToPath(import.meta.url)), '../../../data-samples');
 const DEM_PATH = join(SAMPLES_DIR, 'saltbush-rise-dem.tif');
@@ -286,30 +285,4 @@ describe('sampleProfile on the demo elevation model', () => {
   }
 });
 
-/** The demo elevation model read with geotiff.js, its nodata value turned into NaN. */
-async function readDemoModel(): Promise<ElevationGrid> {
-  const image = await (await fromFile(DEM_PATH)).getImage();
-  const [raw] = await image.readRasters();
-  if (!(raw instanceof Float32Array)) throw new Error('expected a Float32 elevation model');
-  const nodata = image.getGDALNoData();
-  const data = raw.map((v) => (v === nodata ? Number.NaN : v));
-  const [sizeX] = image.getResolution();
-  const width = image.getWidth();
-  const height = image.getHeight();
-  return { width, height, data, ...uniformCellSize(width, height, sizeX!) };
-}
 
-/** Runs a GDAL tool; fails (never skips) with an install hint when GDAL is missing. */
-function runGdal(tool: string, args: readonly string[]): string {
-  const result = spawnSync(tool, args, { encoding: 'utf8' });
-  if (result.error) {
-    if ((result.error as NodeJS.ErrnoException).code === 'ENOENT') {
-      throw new Error(
-        `${tool} not found: install GDAL's command-line tools (Debian: apt-get install gdal-bin) to run the GDAL checks`,
-      );
-    }
-    throw result.error;
-  }
-  if (result.status !== 0) throw new Error(`${tool} ${args.join(' ')} failed: ${result.stderr}`);
-  return result.stdout;
-}

@@ -7,7 +7,6 @@
  * - GDAL gdaldem (Debian gdal-bin 3.6), Horn 1981: `gdaldem slope` (degrees) on the demo elevation
  *   model, with and without `-compute_edges`.
  */
-import { spawnSync } from 'node:child_process';
 import { mkdtempSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { dirname, join, resolve } from 'node:path';
@@ -15,8 +14,9 @@ import { fileURLToPath } from 'node:url';
 import fc from 'fast-check';
 import { fromFile } from 'geotiff';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { computeSlope, hornDifferences, uniformCellSize, type ElevationGrid } from '../../../src/lib/terrain/index';
+import { computeSlope, hornDifferences, type ElevationGrid } from '../../../src/lib/terrain/index';
 import { elevationModel, gridFromFunction, gridFromRows, isOnBoundary, toRows } from './helpers';
+import { readDemoModel, runGdal } from '../../helpers/gdal';
 
 const DEM_PATH = resolve(dirname(fileURLToPath(import.meta.url)), '../../../data-samples/saltbush-rise-dem.tif');
 const DEG = 180 / Math.PI;
@@ -160,30 +160,4 @@ describe('computeSlope against GDAL gdaldem (Debian gdal-bin 3.6), Horn 1981', (
   }
 });
 
-/** The demo elevation model read with geotiff.js, its nodata value turned into NaN. */
-async function readDemoModel(): Promise<ElevationGrid> {
-  const image = await (await fromFile(DEM_PATH)).getImage();
-  const [raw] = await image.readRasters();
-  if (!(raw instanceof Float32Array)) throw new Error('expected a Float32 elevation model');
-  const nodata = image.getGDALNoData();
-  const data = raw.map((v) => (v === nodata ? Number.NaN : v));
-  const [sizeX] = image.getResolution();
-  const width = image.getWidth();
-  const height = image.getHeight();
-  return { width, height, data, ...uniformCellSize(width, height, sizeX!) };
-}
 
-/** Runs a GDAL tool; fails (never skips) with an install hint when GDAL is missing. */
-function runGdal(tool: string, args: readonly string[]): string {
-  const result = spawnSync(tool, args, { encoding: 'utf8' });
-  if (result.error) {
-    if ((result.error as NodeJS.ErrnoException).code === 'ENOENT') {
-      throw new Error(
-        `${tool} not found: install GDAL's command-line tools (Debian: apt-get install gdal-bin) to run the GDAL checks`,
-      );
-    }
-    throw result.error;
-  }
-  if (result.status !== 0) throw new Error(`${tool} ${args.join(' ')} failed: ${result.stderr}`);
-  return result.stdout;
-}

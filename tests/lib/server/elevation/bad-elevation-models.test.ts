@@ -16,7 +16,7 @@ import {
   type ElevationModelOptions,
   type ElevationModelProblem,
 } from '../../../../src/lib/server/elevation/index';
-import { gdalValuesAt, runGdal } from './gdal';
+import { gdalValuesAt, runGdal } from '../../../helpers/gdal';
 import { oversizedTiff } from '../../../helpers/elevation-fixtures';
 
 const DEMO = resolve(dirname(fileURLToPath(import.meta.url)), '../../../../data-samples/saltbush-rise-dem.tif');

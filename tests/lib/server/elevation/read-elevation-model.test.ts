@@ -14,7 +14,7 @@ import { fileURLToPath } from 'node:url';
 import geographiclib from 'geographiclib-geodesic';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { inspectElevationModel, readElevationModel, type ElevationModel, type ElevationModelHeader } from '../../../../src/lib/server/elevation/index';
-import { gdalAllCells, gdalEllipsoid, gdalInfo, gdalValuesAt, runGdal, type GdalInfo } from './gdal';
+import { gdalAllCells, gdalEllipsoid, gdalInfo, gdalValuesAt, runGdal, type GdalInfo } from '../../../helpers/gdal';
 
 const DEMO = resolve(dirname(fileURLToPath(import.meta.url)), '../../../../data-samples/saltbush-rise-dem.tif');
 const TILED = ['-co', 'TILED=YES', '-co', 'BLOCKXSIZE=256', '-co', 'BLOCKYSIZE=256'];

@@ -6,7 +6,11 @@
 import { spawnSync } from 'node:child_process';
 import { readFileSync } from 'node:fs';
 import { join } from 'node:path';
+import { fromFile } from 'geotiff';
 import { z } from 'zod';
+import { uniformCellSize, type ElevationGrid } from '../../src/lib/terrain/index';
+
+const DEMO_MODEL = 'data-samples/saltbush-rise-dem.tif';
 
 /** Runs a GDAL tool; fails (never skips) with an install hint when GDAL is missing. */
 export function runGdal(tool: string, args: readonly string[], input?: string): string {
@@ -81,4 +85,17 @@ export function gdalAllCells(file: string, workDir: string, name: string): Float
   if (!/byte order\s*=\s*0/.test(header)) throw new Error('expected a little-endian ENVI file');
   const bytes = readFileSync(out);
   return new Float64Array(bytes.buffer.slice(bytes.byteOffset, bytes.byteOffset + bytes.byteLength));
+}
+
+/** The demo elevation model (data-samples) read with geotiff.js, its nodata value turned into NaN. */
+export async function readDemoModel(): Promise<ElevationGrid> {
+  const image = await (await fromFile(DEMO_MODEL)).getImage();
+  const [raw] = await image.readRasters();
+  if (!(raw instanceof Float32Array)) throw new Error('expected a Float32 elevation model');
+  const nodata = image.getGDALNoData();
+  const data = raw.map((v) => (v === nodata ? Number.NaN : v));
+  const [sizeX] = image.getResolution();
+  const width = image.getWidth();
+  const height = image.getHeight();
+  return { width, height, data, ...uniformCellSize(width, height, sizeX!) };
 }
