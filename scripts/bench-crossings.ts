@@ -21,6 +21,7 @@ import {
   type DrainageLineInput,
   type FenceLineInput,
 } from '../src/lib/crossings/geometry/index';
+import { createMulberry32 } from '../data-samples/lib/prng';
 
 const seed = Number(process.argv[2] ?? 20261202);
 const fenceKm = Number(process.argv[3] ?? 300);
@@ -69,17 +70,6 @@ const designStage: DesignStage | null = (result) => {
   return statuses;
 };
 
-/** mulberry32: a small seeded PRNG, uniform in [0, 1). */
-function makeRandom(seedValue: number): () => number {
-  let a = seedValue >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
 
 // An invented property near 142.3° E, 31.6° S, about 12 km square; metres → degrees locally.
 const LON0 = 142.3;
@@ -140,7 +130,7 @@ function generateFences(random: () => number, totalM: number): FenceLineInput[] 
   return fences;
 }
 
-const random = makeRandom(seed);
+const random = createMulberry32(seed);
 const drainage = generateDrainage(random, drainageSegments);
 const fences = generateFences(random, fenceKm * 1000);
 const fenceVertices = fences.reduce((n, f) => n + f.coordinates.length, 0);

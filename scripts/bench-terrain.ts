@@ -28,24 +28,14 @@ import {
   uniformCellSize,
   type ElevationGrid,
 } from '../src/lib/terrain/index';
+import { createMulberry32 } from '../data-samples/lib/prng';
 
 const size = Number(process.argv[2] ?? 4000);
 const seed = Number(process.argv[3] ?? 20261202);
 
-/** mulberry32: a small seeded PRNG, uniform in [0, 1). */
-function makeRandom(seedValue: number): () => number {
-  let a = seedValue >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
 
 function generateModel(width: number, height: number, seedValue: number): ElevationGrid {
-  const random = makeRandom(seedValue);
+  const random = createMulberry32(seedValue);
   const data = new Float32Array(width * height);
   // Value-noise octaves: random lattice values, smoothly interpolated.
   const octaves = [
