@@ -22,8 +22,12 @@ export default getViteConfig({
           name: 'api',
           include: ['tests/api/**/*.test.ts'],
           globalSetup: ['tests/helpers/global-server.ts'],
-          testTimeout: 30_000,
-          hookTimeout: 60_000,
+          testTimeout: 60_000,
+          hookTimeout: 120_000,
+          // One file at a time: they share one server and its single terrain worker, and a file
+          // waiting on its terrain run should not queue behind another file's uploads.
+          pool: 'forks',
+          poolOptions: { forks: { singleFork: true } },
         },
       },
       {

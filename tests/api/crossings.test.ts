@@ -37,16 +37,18 @@ beforeAll(async () => {
   await manager.json('PATCH', `/api/properties/${propertyId}/settings`, { version: 0, ifdTable: ifd, priceList: prices.items });
   const upload = await manager.request('POST', `/api/properties/${propertyId}/elevation-models?name=dem.tif`, new Uint8Array(readFileSync('data-samples/saltbush-rise-dem.tif')), { 'Content-Type': 'image/tiff' });
   const runId = ((await upload.json()) as { run: { id: number } }).run.id;
-  for (let i = 0; i < 300; i++) {
-    const { body } = await manager.json<{ run: { status: string } }>('GET', `/api/properties/${propertyId}/terrain-runs/${runId}`);
+  for (let i = 0; ; i++) {
+    const { body } = await manager.json<{ run: { status: string; message: string | null } }>('GET', `/api/properties/${propertyId}/terrain-runs/${runId}`);
     if (body.run.status === 'succeeded') break;
+    if (body.run.status !== 'queued' && body.run.status !== 'running') throw new Error(`terrain run ${body.run.status}: ${body.run.message}`);
+    if (i > 1000) throw new Error('terrain run did not finish in 100 s');
     await new Promise((resolve) => setTimeout(resolve, 100));
   }
   for (const fence of manifest.fenceLines) {
     const { body } = await manager.json<{ fenceLine: { id: number } }>('POST', `/api/properties/${propertyId}/fence-lines`, { name: fence.name, coordinates: fence.pointsLonLat });
     fenceIds.set(fence.name, body.fenceLine.id);
   }
-}, 90_000);
+}, 120_000);
 afterAll(closeServerDb);
 
 describe('crossings of the demo subdivision', () => {

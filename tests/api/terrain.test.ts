@@ -2,7 +2,7 @@ import { execFileSync } from 'node:child_process';
 import { existsSync, mkdtempSync, readdirSync, readFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import path from 'node:path';
-import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
+import { afterAll, beforeAll, describe, expect, inject, it, vi } from 'vitest';
 import geodesic from 'geographiclib-geodesic';
 import { oversizedTiff } from '../helpers/elevation-fixtures';
 import { closeServerDb, rowCounts, signedInClient, type TestClient } from '../helpers/api-client';
@@ -13,6 +13,8 @@ const manifest = JSON.parse(readFileSync('data-samples/saltbush-rise.json', 'utf
   fenceLines: { name: string; pointsLonLat: [number, number][]; crossing: { pointLonLat: [number, number] } }[];
 };
 const work = mkdtempSync(path.join(tmpdir(), 'gullyline-terrain-api-'));
+// Runs wait their turn for the server's one terrain worker, possibly behind earlier files' runs.
+vi.setConfig({ testTimeout: 150_000 });
 
 /** A variant of the demo model written by GDAL (Debian gdal-bin), the reference tool for GeoTIFFs. */
 function gdalVariant(name: string, tool: string, args: string[]): Uint8Array {
@@ -33,7 +35,8 @@ async function upload(bytes: Uint8Array, query = '?name=model.tif', id = propert
 
 async function waitForRun(runId: number, id = propertyId): Promise<{ run: Run; seen: Set<string> }> {
   const seen = new Set<string>();
-  for (let i = 0; i < 600; i++) {
+  // Up to two minutes: the server runs one terrain run at a time.
+  for (let i = 0; i < 2400; i++) {
     const { body } = await manager.json<{ run: Run }>('GET', `/api/properties/${id}/terrain-runs/${runId}`);
     seen.add(`${body.run.status}:${body.run.stage ?? ''}`);
     if (!['queued', 'running'].includes(body.run.status)) return { run: body.run, seen };
