@@ -106,7 +106,7 @@ export default function LayerToggles({ visible, onChange, showTerrain, fenceStat
               </li>
               <li className="flex items-center gap-2">
                 <CrossingSymbol angleClass="fair" designed={false} />
-                Hollow: not designed yet
+                Hollow: no design (open it for why)
               </li>
             </ul>
           </div>
