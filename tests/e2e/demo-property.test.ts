@@ -1,16 +1,11 @@
-import { execFileSync } from 'node:child_process';
 import type { Browser } from 'playwright-core';
-import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { DEMO_ACCOUNTS, DEMO_PASSWORD } from '../../scripts/demo-accounts';
-import { appContext, launchBrowser, screenshot, signInThroughPage, waitForMap } from '../helpers/browser';
+import { appContext, launchBrowser, screenshot, seedDemoIntoTestServer, signInThroughPage, waitForMap } from '../helpers/browser';
 
 let browser: Browser;
 beforeAll(async () => {
-  // `npm run db:seed` against the test server's own database, as the demo command runs it.
-  execFileSync(process.execPath, ['--import', 'tsx', 'scripts/db.ts', 'seed'], {
-    env: { ...process.env, DATA_DIR: inject('dataDir'), DATABASE_URL: '', NODE_ENV: 'test' },
-    stdio: 'pipe',
-  });
+  seedDemoIntoTestServer();
   browser = await launchBrowser();
 });
 afterAll(() => browser?.close());

@@ -1,3 +1,4 @@
+import { execFileSync } from 'node:child_process';
 import { mkdirSync } from 'node:fs';
 import path from 'node:path';
 import { chromium, type Browser, type BrowserContext, type Page } from 'playwright-core';
@@ -66,4 +67,15 @@ export async function waitForMap(page: Page): Promise<void> {
     const map = (window as unknown as { __gullylineMap?: { loaded(): boolean; areTilesLoaded(): boolean } }).__gullylineMap;
     return !!map && map.loaded() && map.areTilesLoaded();
   }, undefined, { timeout: 30_000 });
+}
+
+/**
+ * `npm run db:seed` against the test server's own database, as the demo command runs it. The seed
+ * queues the demo's terrain run; the running server picks it up and designs the crossings.
+ */
+export function seedDemoIntoTestServer(): void {
+  execFileSync(process.execPath, ['--import', 'tsx', 'scripts/db.ts', 'seed'], {
+    env: { ...process.env, DATA_DIR: inject('dataDir'), DATABASE_URL: '', NODE_ENV: 'test' },
+    stdio: 'pipe',
+  });
 }
