@@ -25,6 +25,8 @@ export type PropertyMapProps = {
   interactiveLayerIds?: readonly string[];
   /** Called with the topmost feature of `interactiveLayerIds` under a click or tap. */
   onFeatureClick?: (feature: MapGeoJSONFeature) => void;
+  /** The ground height at a point, metres, or null off the elevation models (shown in the readout). */
+  groundHeightAt?: (lon: number, lat: number) => Promise<number | null>;
 };
 
 /** Mainland Australia: with no extent the map frames it, which centres on inland country. */
@@ -64,7 +66,7 @@ function extentFromKey(key: string): BboxWgs84 | null {
  * navigation and metric scale controls, and a readout of the pointer's coordinates.
  * Used from Astro as `<PropertyMap client:only="react" … />`; it fills its parent's box.
  */
-export default function PropertyMap({ propertyName, extentWgs84, children, interactiveLayerIds, onFeatureClick }: PropertyMapProps) {
+export default function PropertyMap({ propertyName, extentWgs84, children, interactiveLayerIds, onFeatureClick, groundHeightAt }: PropertyMapProps) {
   const mapRef = useRef<MapRef>(null);
   const messageId = useId();
   const [loaded, setLoaded] = useState(false);
@@ -147,7 +149,7 @@ export default function PropertyMap({ propertyName, extentWgs84, children, inter
         {children}
         <NavigationControl position="top-right" visualizePitch={false} />
         <ScaleControl position="bottom-left" unit="metric" maxWidth={120} />
-        <CursorReadout />
+        <CursorReadout groundHeightAt={groundHeightAt} />
       </Map>
 
       {!extent && (
@@ -168,19 +170,42 @@ export default function PropertyMap({ propertyName, extentWgs84, children, inter
 
 type Cursor = { lat: number; lon: number };
 
+/** The pointer must rest this long before its ground height is asked for. */
+const HEIGHT_PAUSE_MS = 120;
+
 /**
- * Latitude and longitude under the pointer (or the last tap), 5 decimals (about 1 m).
- * It listens to the map itself so that pointer moves re-render only this box, not the map.
+ * Latitude and longitude under the pointer (or the last tap), 5 decimals (about 1 m), and the
+ * ground height there once the pointer pauses. It listens to the map itself so that pointer moves
+ * re-render only this box, not the map.
  */
-function CursorReadout() {
+function CursorReadout({ groundHeightAt }: { groundHeightAt?: PropertyMapProps['groundHeightAt'] }) {
   const { current: mapRef } = useMap();
   const [cursor, setCursor] = useState<Cursor | null>(null);
+  const [height, setHeight] = useState<{ at: Cursor; metres: number | null } | null>(null);
+
+  // Ask once the pointer rests; a newer position drops the older answer.
+  useEffect(() => {
+    if (!cursor || !groundHeightAt) return;
+    let current = true;
+    const timer = setTimeout(() => {
+      groundHeightAt(cursor.lon, cursor.lat)
+        .then((metres) => current && setHeight({ at: cursor, metres }))
+        .catch(() => current && setHeight(null));
+    }, HEIGHT_PAUSE_MS);
+    return () => {
+      current = false;
+      clearTimeout(timer);
+    };
+  }, [cursor, groundHeightAt]);
 
   useEffect(() => {
     const map = mapRef?.getMap();
     if (!map) return;
     const show = (event: MapMouseEvent) => setCursor({ lat: event.lngLat.lat, lon: event.lngLat.lng });
-    const clear = () => setCursor(null);
+    const clear = () => {
+      setCursor(null);
+      setHeight(null);
+    };
     map.on('mousemove', show);
     map.on('click', show);
     map.on('mouseout', clear);
@@ -198,6 +223,12 @@ function CursorReadout() {
       style={{ backgroundColor: `${MAP_COLOURS.casing}e6`, color: MAP_COLOURS.text }}
     >
       {cursor ? `lat ${cursor.lat.toFixed(5)}, lon ${cursor.lon.toFixed(5)}` : 'lat —, lon —'}
+      {groundHeightAt && cursor && (
+        <span data-testid="cursor-height">
+          {' · '}
+          {height?.at === cursor ? (height.metres === null ? 'no ground model here' : `ground ${height.metres.toFixed(1)} m`) : 'ground …'}
+        </span>
+      )}
     </div>
   );
 }

@@ -2,6 +2,7 @@ import { useState } from 'react';
 import { FENCE_STATUS_STYLES, PLAN_COLOURS } from '../map/plan-layers';
 import type { TerrainVisibility } from '../map/TerrainOverlay';
 import { TERRAIN_COLOURS } from '../map/terrain-layers';
+import { TRACK_PADDOCK_COLOURS } from '../map/track-layers';
 import type { FenceStatus } from '../../lib/schemas/plan';
 import { CrossingSymbol } from './CrossingsPanel';
 
@@ -16,7 +17,19 @@ type Props = {
   showCrossings: boolean;
   /** Whether a suggested realignment is drawn. */
   showRealignment: boolean;
+  /** Tracks and paddocks: switches shown only when there are some. */
+  planVisible: PlanVisibility;
+  onPlanChange: (next: PlanVisibility) => void;
+  showTracks: boolean;
+  showPaddocks: boolean;
 };
+
+export type PlanVisibility = { tracks: boolean; paddocks: boolean };
+
+const PLAN_ROWS: { key: keyof PlanVisibility; label: string; swatch: React.CSSProperties }[] = [
+  { key: 'tracks', label: 'GPS tracks', swatch: { backgroundImage: `radial-gradient(circle, ${TRACK_PADDOCK_COLOURS.track} 45%, transparent 50%)`, backgroundSize: '6px 6px', height: 6 } },
+  { key: 'paddocks', label: 'Paddocks', swatch: { background: `${TRACK_PADDOCK_COLOURS.paddockFill}40`, border: `2px solid ${TRACK_PADDOCK_COLOURS.paddockEdge}`, height: 12 } },
+];
 
 const ROWS: { key: keyof TerrainVisibility; label: string; swatch: React.CSSProperties }[] = [
   { key: 'drainage', label: 'Drainage lines', swatch: { background: TERRAIN_COLOURS.drainage, height: 4 } },
@@ -48,7 +61,8 @@ function FenceSwatch({ status }: { status: FenceStatus }) {
 const startsOpen = () => typeof window === 'undefined' || window.matchMedia('(min-width: 768px)').matches;
 
 /** The map's key: the terrain entries are also switches for their layers; the plan's are a key only. */
-export default function LayerToggles({ visible, onChange, showTerrain, fenceStatuses, showCrossings, showRealignment }: Props) {
+export default function LayerToggles({ visible, onChange, showTerrain, fenceStatuses, showCrossings, showRealignment, planVisible, onPlanChange, showTracks, showPaddocks }: Props) {
+  const planRows = PLAN_ROWS.filter((row) => (row.key === 'tracks' ? showTracks : showPaddocks));
   const [open, setOpen] = useState(startsOpen);
   return (
     <details
@@ -68,6 +82,23 @@ export default function LayerToggles({ visible, onChange, showTerrain, fenceStat
                   className="h-5 w-5"
                   checked={visible[row.key]}
                   onChange={(e) => onChange({ ...visible, [row.key]: e.target.checked })}
+                />
+                <span aria-hidden="true" className="inline-block w-6 rounded-sm" style={row.swatch} />
+                {row.label}
+              </label>
+            ))}
+          </fieldset>
+        )}
+        {planRows.length > 0 && (
+          <fieldset aria-label="Plan layers">
+            <legend className="sr-only">Plan layers</legend>
+            {planRows.map((row) => (
+              <label key={row.key} className="flex min-h-11 cursor-pointer items-center gap-2">
+                <input
+                  type="checkbox"
+                  className="h-5 w-5"
+                  checked={planVisible[row.key]}
+                  onChange={(e) => onPlanChange({ ...planVisible, [row.key]: e.target.checked })}
                 />
                 <span aria-hidden="true" className="inline-block w-6 rounded-sm" style={row.swatch} />
                 {row.label}

@@ -10,8 +10,17 @@ import TerrainOverlay, { type TerrainRunLayer, type TerrainVisibility } from '..
 import { withQueryClient } from '../QueryRoot';
 import CrossingDetail, { crossingDetailQuery, type RealignmentPreview } from './CrossingDetail';
 import CrossingsPanel from './CrossingsPanel';
-import { FENCE_STATUS_STYLES, LAYOUT_MIN_ZOOM, LAYOUT_VIEW_ZOOM } from '../map/plan-layers';
-import LayerToggles from './LayerToggles';
+import { FENCE_STATUS_STYLES, LAYOUT_MIN_ZOOM, LAYOUT_VIEW_ZOOM, fenceStatusLayers } from '../map/plan-layers';
+import TracksOverlay from '../map/TracksOverlay';
+import { EditPanel } from './editing/EditPanel';
+import { EditToolbar } from './editing/EditToolbar';
+import { FenceLinePanel } from './editing/FenceLinePanel';
+import { PaddocksPanel } from './editing/PaddocksPanel';
+import PlanDrawing from './editing/PlanDrawing';
+import { ShortcutsHelp, useWorkspaceShortcuts } from './editing/shortcuts';
+import { TracksPanel } from './editing/TracksPanel';
+import { usePlanEditor } from './editing/use-plan-editor';
+import LayerToggles, { type PlanVisibility } from './LayerToggles';
 import TerrainPanel from './TerrainPanel';
 
 type Props = {
@@ -22,6 +31,9 @@ type Props = {
   /** Static panels rendered by the page (the safety note). */
   children?: ReactNode;
 };
+
+const FENCE_LAYER_IDS = fenceStatusLayers.map((layer) => layer.id);
+const MAP_PICKABLE_LAYER_IDS = [...CROSSING_INTERACTIVE_LAYER_IDS, ...FENCE_LAYER_IDS];
 
 /** After a terrain run, crossings are analysed again for up to this long; the list polls meanwhile. */
 const ANALYSIS_WAIT_MS = 60_000;
@@ -70,6 +82,11 @@ function Workspace({ propertyId, propertyName, extentWgs84, canEdit, children }:
     },
   });
   const crossingList = useMemo<CrossingSummaryView[]>(() => (crossings.data?.features ?? []).map((feature) => feature.properties), [crossings.data]);
+  const tracks = useQuery({ queryKey: ['tracks', propertyId], queryFn: () => api.listTracks(propertyId).then((r) => r.tracks) });
+  const paddocks = useQuery({ queryKey: ['paddocks', propertyId], queryFn: () => api.listPaddocks(propertyId).then((r) => r.paddocks) });
+  const [planVisible, setPlanVisible] = useState<PlanVisibility>({ tracks: true, paddocks: true });
+  const [selectedFenceId, setSelectedFenceId] = useState<number | null>(null);
+  const selectedFence = (fenceLines.data ?? []).find((fence) => fence.id === selectedFenceId) ?? null;
 
   const [selectedId, setSelectedId] = useState<number | null>(null);
   const [revealSeq, setRevealSeq] = useState(0);
@@ -78,6 +95,30 @@ function Workspace({ propertyId, propertyName, extentWgs84, canEdit, children }:
   const [realignment, setRealignment] = useState<RealignmentPreview | null>(null);
   const [notice, setNotice] = useState<string | null>(null);
   const selected = crossingList.find((crossing) => crossing.id === selectedId) ?? null;
+  const groundHeightAt = useCallback(
+    (lon: number, lat: number) => api.elevationAt(propertyId, lon, lat).then((answer) => answer.elevationM),
+    [propertyId],
+  );
+  const editor = usePlanEditor({
+    propertyId,
+    onSaved: ({ fenceLine, message }) => {
+      setNotice(message);
+      if (fenceLine) {
+        setSelectedId(null);
+        setSelectedFenceId(fenceLine.id);
+      }
+    },
+  });
+  const [showHelp, setShowHelp] = useState(false);
+  useWorkspaceShortcuts({ editor, canEdit, onHelp: () => setShowHelp((shown) => !shown) });
+  // Fences join end to end and follow walked tracks: both are snap targets while drawing.
+  const snapTargets = useMemo(
+    () => ({
+      fenceEnds: (fenceLines.data ?? []).flatMap((fence) => [fence.coordinates[0]!, fence.coordinates.at(-1)!]),
+      tracks: (tracks.data ?? []).map((track) => track.coordinates),
+    }),
+    [fenceLines.data, tracks.data],
+  );
   const selectedPosition = crossings.data?.features.find((feature) => feature.properties.id === selectedId)?.geometry.coordinates ?? null;
 
   // The selected crossing's design (shared with the detail panel's query) gives the layout points.
@@ -107,7 +148,13 @@ function Workspace({ propertyId, propertyName, extentWgs84, canEdit, children }:
   const onFeatureClick = useCallback(
     (feature: MapGeoJSONFeature) => {
       const id = Number(feature.properties?.id);
-      if (Number.isInteger(id)) select(id, 'map');
+      if (!Number.isInteger(id)) return;
+      if (FENCE_LAYER_IDS.includes(feature.layer.id)) {
+        setSelectedFenceId(id);
+        setNotice(null);
+        if (!isWideScreen()) return;
+        setRevealSeq((seq) => seq + 1);
+      } else select(id, 'map');
     },
     [select],
   );
@@ -154,7 +201,10 @@ function Workspace({ propertyId, propertyName, extentWgs84, canEdit, children }:
   }, [currentRunIds]);
 
   const fenceStatuses = FENCE_STATUSES.filter((status) => (fenceLines.data ?? []).some((fence) => fence.status === status));
-  const showKey = runs.length > 0 || fenceStatuses.length > 0 || crossingList.length > 0;
+  const showTracks = (tracks.data ?? []).length > 0;
+  const showPaddocks = (paddocks.data ?? []).length > 0;
+  const showKey = runs.length > 0 || fenceStatuses.length > 0 || crossingList.length > 0 || showTracks || showPaddocks;
+  const editing = editor.task !== null;
 
   return (
     // On a phone the map and the panels scroll as one page; side by side each keeps its own height.
@@ -163,10 +213,13 @@ function Workspace({ propertyId, propertyName, extentWgs84, canEdit, children }:
         <PropertyMap
           propertyName={propertyName}
           extentWgs84={extent}
-          interactiveLayerIds={CROSSING_INTERACTIVE_LAYER_IDS}
-          onFeatureClick={onFeatureClick}
+          // While a shape is drawn, clicks belong to the drawing.
+          interactiveLayerIds={editing ? undefined : MAP_PICKABLE_LAYER_IDS}
+          onFeatureClick={editing ? undefined : onFeatureClick}
+          groundHeightAt={runs.length > 0 ? groundHeightAt : undefined}
         >
           <TerrainOverlay propertyId={propertyId} runs={runs} drainage={drainage.data ?? null} visible={visible} underExtent={extent !== null} />
+          <TracksOverlay tracks={tracks.data ?? null} paddocks={paddocks.data ?? null} visible={planVisible} />
           <PlanOverlay
             fenceLines={fenceLines.data ?? null}
             crossings={crossings.data ?? null}
@@ -175,7 +228,20 @@ function Workspace({ propertyId, propertyName, extentWgs84, canEdit, children }:
             realignment={realignment}
             focus={focus}
           />
+          {canEdit && <PlanDrawing snapTargets={snapTargets} {...editor.drawingProps} />}
         </PropertyMap>
+        {canEdit && <EditToolbar editor={editor} />}
+        <button
+          type="button"
+          className="absolute right-2.5 top-[6.5rem] z-10 flex h-8 w-8 items-center justify-center rounded-md border border-sand-300 bg-white font-bold text-bark-900 shadow-sm"
+          onClick={() => setShowHelp((shown) => !shown)}
+          aria-label="Keyboard shortcuts"
+          aria-keyshortcuts="?"
+          title="Keyboard shortcuts (?)"
+          data-testid="shortcuts-button"
+        >
+          ?
+        </button>
         {showKey && (
           <LayerToggles
             visible={visible}
@@ -184,6 +250,10 @@ function Workspace({ propertyId, propertyName, extentWgs84, canEdit, children }:
             fenceStatuses={fenceStatuses}
             showCrossings={crossingList.length > 0}
             showRealignment={realignment !== null}
+            planVisible={planVisible}
+            onPlanChange={setPlanVisible}
+            showTracks={showTracks}
+            showPaddocks={showPaddocks}
           />
         )}
       </section>
@@ -193,6 +263,27 @@ function Workspace({ propertyId, propertyName, extentWgs84, canEdit, children }:
         data-testid="workspace-panels"
       >
         <p className="sr-only" role="status">{announcement}</p>
+        {showHelp && <ShortcutsHelp canEdit={canEdit} onClose={() => setShowHelp(false)} />}
+        {canEdit && <EditPanel editor={editor} fenceCount={(fenceLines.data ?? []).length} paddockCount={(paddocks.data ?? []).length} />}
+        {notice && !selected && (
+          <p className="rounded-lg border border-saltbush-500 bg-saltbush-100 px-4 py-3 text-sm" role="status" data-testid="workspace-notice">
+            {notice}
+          </p>
+        )}
+        {selectedFence && !editing && (
+          <div className="order-first md:order-none">
+            <FenceLinePanel
+              key={selectedFence.id}
+              propertyId={propertyId}
+              fence={selectedFence}
+              crossings={crossingList}
+              canEdit={canEdit}
+              onReshape={() => editor.startReshape({ fence: selectedFence })}
+              onClose={() => setSelectedFenceId(null)}
+              onSelectCrossing={(id) => select(id, 'list')}
+            />
+          </div>
+        )}
         {selected && (
           // On a phone the open crossing comes first, right under the map.
           <div className="order-first md:order-none">
@@ -220,7 +311,16 @@ function Workspace({ propertyId, propertyName, extentWgs84, canEdit, children }:
           </div>
         )}
         <TerrainPanel propertyId={propertyId} canEdit={canEdit} models={models.data ?? []} loading={models.isPending} />
-        <FenceLinesSummary fenceLines={fenceLines.data ?? []} loading={fenceLines.isPending} error={fenceLines.error} crossings={crossingList} />
+        <FenceLinesSummary
+          fenceLines={fenceLines.data ?? []}
+          loading={fenceLines.isPending}
+          error={fenceLines.error}
+          crossings={crossingList}
+          onSelect={(id) => {
+            setSelectedFenceId(id);
+            setNotice(null);
+          }}
+        />
         <CrossingsPanel
           crossings={crossingList}
           fenceLines={fenceLines.data ?? []}
@@ -229,6 +329,21 @@ function Workspace({ propertyId, propertyName, extentWgs84, canEdit, children }:
           hasTerrain={runs.length > 0}
           selectedId={selectedId}
           onSelect={(id) => select(id, 'list')}
+        />
+        <TracksPanel
+          propertyId={propertyId}
+          tracks={tracks.data ?? []}
+          loading={tracks.isPending}
+          canEdit={canEdit}
+          onFenceMade={(fenceLine) => setSelectedFenceId(fenceLine.id)}
+        />
+        <PaddocksPanel
+          propertyId={propertyId}
+          paddocks={paddocks.data ?? []}
+          loading={paddocks.isPending}
+          canEdit={canEdit}
+          hasFences={(fenceLines.data ?? []).length > 0}
+          onReshape={(paddock) => editor.startReshape({ paddock })}
         />
         {children}
       </aside>
@@ -244,11 +359,13 @@ function FenceLinesSummary({
   loading,
   error,
   crossings,
+  onSelect,
 }: {
   fenceLines: FenceLine[];
   loading: boolean;
   error: Error | null;
   crossings: CrossingSummaryView[];
+  onSelect: (fenceLineId: number) => void;
 }) {
   const totalKm = fenceLines.reduce((sum, fence) => sum + fence.lengthM, 0) / 1000;
   return (
@@ -269,14 +386,21 @@ function FenceLinesSummary({
             {fenceLines.map((fence) => {
               const count = crossings.filter((c) => c.fenceLineId === fence.id && c.kind !== 'runs-along').length;
               return (
-                <li key={fence.id} className="flex items-center justify-between gap-2 py-1.5">
-                  <span className="min-w-0">
-                    <span className="block truncate font-semibold">{fence.name}</span>
-                    <span className="text-bark-700">
-                      {FENCE_STATUS_STYLES[fence.status].label} · {count} {count === 1 ? 'crossing' : 'crossings'}
+                <li key={fence.id}>
+                  <button
+                    type="button"
+                    className="flex min-h-11 w-full items-center justify-between gap-2 py-1.5 text-left hover:bg-sand-100"
+                    onClick={() => onSelect(fence.id)}
+                    data-testid="fence-row"
+                  >
+                    <span className="min-w-0">
+                      <span className="block truncate font-semibold">{fence.name}</span>
+                      <span className="text-bark-700">
+                        {FENCE_STATUS_STYLES[fence.status].label} · {count} {count === 1 ? 'crossing' : 'crossings'}
+                      </span>
                     </span>
-                  </span>
-                  <span className="shrink-0 tabular-nums">{kmFormat.format(fence.lengthM / 1000)} km</span>
+                    <span className="shrink-0 tabular-nums">{kmFormat.format(fence.lengthM / 1000)} km</span>
+                  </button>
                 </li>
               );
             })}

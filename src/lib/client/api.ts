@@ -6,7 +6,8 @@ import type {
   FenceLinesResponse,
   RealignmentView,
 } from '../schemas/crossing-view';
-import type { FenceLine } from '../schemas/plan';
+import type { FenceLine, FenceLineInput } from '../schemas/plan';
+import type { Paddock, Track, TrackImportResult } from '../schemas/tracks';
 import type { Member, PropertySummary } from '../schemas/property';
 import type { ElevationModelView, TerrainRun } from '../schemas/terrain';
 
@@ -22,11 +23,13 @@ export class ApiError extends Error {
 }
 
 async function request<T>(method: string, path: string, body?: unknown): Promise<T> {
+  // A File goes as the raw body (an upload); anything else as JSON.
+  const isFile = typeof File !== 'undefined' && body instanceof File;
   const response = await fetch(path, {
     method,
     credentials: 'same-origin',
-    headers: body === undefined ? {} : { 'Content-Type': 'application/json' },
-    body: body === undefined ? undefined : JSON.stringify(body),
+    headers: body === undefined ? {} : { 'Content-Type': isFile ? body.type || 'application/octet-stream' : 'application/json' },
+    body: body === undefined ? undefined : isFile ? body : JSON.stringify(body),
   });
   if (response.status === 204) return undefined as T;
   const data = (await response.json().catch(() => ({}))) as { error?: string; fields?: Record<string, string> };
@@ -56,8 +59,36 @@ export const api = {
     request<{ run: TerrainRun }>('POST', `/api/properties/${propertyId}/terrain-runs/${runId}/cancel`),
   startTerrainRun: (propertyId: number, elevationModelId: number, thresholdHa?: number) =>
     request<{ run: TerrainRun }>('POST', `/api/properties/${propertyId}/terrain-runs`, { elevationModelId, thresholdHa }),
+  /** Ground height at a point from the finest processed elevation model covering it (null outside every model). */
+  elevationAt: (propertyId: number, lon: number, lat: number) =>
+    request<{ elevationM: number | null }>('GET', `/api/properties/${propertyId}/elevation?lon=${lon}&lat=${lat}`),
   drainageLines: (propertyId: number) => request<FeatureCollection>('GET', `/api/properties/${propertyId}/drainage-lines`),
   listFenceLines: (propertyId: number) => request<FenceLinesResponse>('GET', `/api/properties/${propertyId}/fence-lines`),
+  createFenceLine: (propertyId: number, input: Partial<FenceLineInput> & Pick<FenceLineInput, 'name' | 'coordinates'>) =>
+    request<{ fenceLine: FenceLine }>('POST', `/api/properties/${propertyId}/fence-lines`, input),
+  /** Changes a fence line; `version` is the one read (a 409 ApiError when someone changed it meanwhile). */
+  updateFenceLine: (propertyId: number, fenceLineId: number, changes: Partial<FenceLineInput> & { version: number }) =>
+    request<{ fenceLine: FenceLine }>('PATCH', `/api/properties/${propertyId}/fence-lines/${fenceLineId}`, changes),
+  getFenceLine: (propertyId: number, fenceLineId: number) =>
+    request<{ fenceLine: FenceLine }>('GET', `/api/properties/${propertyId}/fence-lines/${fenceLineId}`),
+  deleteFenceLine: (propertyId: number, fenceLineId: number) =>
+    request<void>('DELETE', `/api/properties/${propertyId}/fence-lines/${fenceLineId}`),
+  listTracks: (propertyId: number) => request<{ tracks: Track[] }>('GET', `/api/properties/${propertyId}/tracks`),
+  /** Sends a GPX or KML file: its lines become tracks, its polygons paddocks. */
+  importTrackFile: (propertyId: number, file: File) =>
+    request<{ imported: TrackImportResult }>('POST', `/api/properties/${propertyId}/tracks?name=${encodeURIComponent(file.name)}`, file),
+  deleteTrack: (propertyId: number, trackId: number) => request<void>('DELETE', `/api/properties/${propertyId}/tracks/${trackId}`),
+  trackToFenceLine: (propertyId: number, trackId: number) =>
+    request<{ fenceLine: FenceLine }>('POST', `/api/properties/${propertyId}/tracks/${trackId}/fence-line`),
+  listPaddocks: (propertyId: number) => request<{ paddocks: Paddock[] }>('GET', `/api/properties/${propertyId}/paddocks`),
+  getPaddock: (propertyId: number, paddockId: number) => request<{ paddock: Paddock }>('GET', `/api/properties/${propertyId}/paddocks/${paddockId}`),
+  createPaddock: (propertyId: number, input: { name: string; rings: [number, number][][] }) =>
+    request<{ paddock: Paddock }>('POST', `/api/properties/${propertyId}/paddocks`, input),
+  updatePaddock: (propertyId: number, paddockId: number, changes: { name?: string; rings?: [number, number][][]; version: number }) =>
+    request<{ paddock: Paddock }>('PATCH', `/api/properties/${propertyId}/paddocks/${paddockId}`, changes),
+  deletePaddock: (propertyId: number, paddockId: number) => request<void>('DELETE', `/api/properties/${propertyId}/paddocks/${paddockId}`),
+  /** Makes paddocks of the areas the fence lines close off (those not already a paddock). */
+  paddocksFromFences: (propertyId: number) => request<{ paddocks: Paddock[] }>('POST', `/api/properties/${propertyId}/paddocks/from-fences`, {}),
   /** The property's crossings as a GeoJSON FeatureCollection of Points. */
   listCrossings: (propertyId: number) => request<CrossingCollection>('GET', `/api/properties/${propertyId}/crossings`),
   getCrossing: (propertyId: number, crossingId: number) =>

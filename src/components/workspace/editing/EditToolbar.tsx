@@ -1,0 +1,73 @@
+import type { PlanEditor } from './use-plan-editor';
+import { formatMeasures } from './format-measure';
+
+type Props = { editor: PlanEditor };
+
+const HINTS = {
+  fence: 'Click to add points; click the last point again or press Enter to finish. Points snap to fence ends and tracks.',
+  paddock: 'Click around the paddock; click the first point or press Enter to close it.',
+  reshape: 'Drag a point to move it, drag a small middle point to add one, right-click a point to remove it.',
+} as const;
+
+/**
+ * The editing strip over the map: start drawing a fence line or a paddock, then the hint, the live
+ * length or area, undo/redo and finish/cancel for the shape under way. Shown only to editors.
+ */
+export function EditToolbar({ editor }: Props) {
+  const { task, tool, history, measures, controlsRef } = editor;
+  const drawing = tool.kind === 'draw';
+  const reshaping = tool.kind === 'reshape';
+  const measure = formatMeasures(measures);
+  const hint = drawing ? HINTS[tool.shape] : reshaping ? HINTS.reshape : null;
+
+  return (
+    <div
+      className="absolute right-12 top-2 z-10 flex max-w-[min(24rem,calc(100%-4rem))] flex-col items-end gap-2 rounded-lg bg-white/95 p-2 shadow-md"
+      role="toolbar"
+      aria-label="Edit the plan"
+      data-testid="edit-toolbar"
+    >
+      {!task ? (
+        <div className="flex flex-col gap-2 sm:flex-row">
+          <button type="button" className="btn-primary min-h-11" onClick={() => editor.startDrawing('fence')} data-testid="draw-fence" aria-keyshortcuts="F">
+            Draw fence
+          </button>
+          <button type="button" className="btn-quiet min-h-11" onClick={() => editor.startDrawing('paddock')} data-testid="draw-paddock" aria-keyshortcuts="P">
+            Draw paddock
+          </button>
+        </div>
+      ) : (
+        <>
+          {hint && <p className="max-w-sm text-sm text-bark-700">{hint}</p>}
+          <p className="text-sm font-semibold tabular-nums" aria-live="polite" data-testid="draft-measure">
+            {measure ? `${tool.kind === 'draw' || task.kind.startsWith('new') ? 'New' : 'Now'}: ${measure}` : 'No points yet'}
+          </p>
+          {(drawing || reshaping) && (
+            <div className="flex flex-wrap gap-2">
+              <button type="button" className="btn-quiet min-h-11 px-3" disabled={!history.canUndo} onClick={() => controlsRef.current?.undo()} aria-keyshortcuts="Control+Z" data-testid="draft-undo">
+                Undo
+              </button>
+              <button type="button" className="btn-quiet min-h-11 px-3" disabled={!history.canRedo} onClick={() => controlsRef.current?.redo()} aria-keyshortcuts="Control+Shift+Z" data-testid="draft-redo">
+                Redo
+              </button>
+              {drawing && (
+                <button type="button" className="btn-primary min-h-11 px-3" onClick={() => controlsRef.current?.finish()} aria-keyshortcuts="Enter" data-testid="draft-finish">
+                  Finish
+                </button>
+              )}
+              {reshaping && (
+                <button type="button" className="btn-primary min-h-11 px-3" disabled={editor.busy} onClick={() => editor.saveShape()} data-testid="reshape-save">
+                  {editor.busy ? 'Saving…' : 'Save shape'}
+                </button>
+              )}
+              <button type="button" className="btn-quiet min-h-11 px-3" onClick={editor.cancel} aria-keyshortcuts="Escape" data-testid="draft-cancel">
+                Cancel
+              </button>
+            </div>
+          )}
+          {tool.kind === 'hold' && <p className="text-sm text-bark-700">Fill in the details in the panel to save it.</p>}
+        </>
+      )}
+    </div>
+  );
+}
