@@ -122,7 +122,7 @@ export function FenceLineForm({ initial, submitLabel, busy, fieldErrors = {}, on
         {error('wires')}
       </fieldset>
       <div className="grid grid-cols-2 gap-2">
-        <div className="field">
+        <div className="field col-span-2">
           <label htmlFor={`${id}-plain`}>Plain wire</label>
           <select id={`${id}-plain`} value={plainWireTypeId} onChange={(e) => setPlain(e.target.value)}>
             {plainTypes.map((wire) => (
@@ -132,7 +132,7 @@ export function FenceLineForm({ initial, submitLabel, busy, fieldErrors = {}, on
             ))}
           </select>
         </div>
-        <div className="field">
+        <div className="field col-span-2">
           <label htmlFor={`${id}-barbed`}>Barbed wire</label>
           <select id={`${id}-barbed`} value={barbedWireTypeId} onChange={(e) => setBarbed(e.target.value)}>
             {barbedTypes.map((wire) => (

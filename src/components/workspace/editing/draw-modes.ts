@@ -48,11 +48,13 @@ export function createPlanDraw(map: MaplibreMap, snap: SnapToCustom): TerraDraw 
       new TerraDrawLineStringMode({
         modeName: DRAW_MODES.fence,
         snapping,
+        showCoordinatePoints: true,
         styles: { lineStringColor: hex(DRAFT_COLOURS.line), lineStringWidth: 4, ...vertexStyles },
       }),
       new TerraDrawPolygonMode({
         modeName: DRAW_MODES.paddock,
         snapping,
+        showCoordinatePoints: true,
         styles: {
           fillColor: hex(DRAFT_COLOURS.paddockFill),
           fillOpacity: 0.25,

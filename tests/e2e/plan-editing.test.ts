@@ -1,0 +1,187 @@
+// Drawing and editing the plan in the workspace, as a manager would with a mouse, and the
+// limits a crew member meets. The fence drawn here crosses the demo's main creek at an angle
+// constructed from the generator's creek centreline (data-samples/saltbush-rise.json), so the
+// angle the app finds is checked against geometry made outside it.
+import { readFileSync } from 'node:fs';
+import type { Browser, Page } from 'playwright-core';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { DEMO_ACCOUNTS, DEMO_PASSWORD } from '../../scripts/demo-accounts';
+import { createToWgs84 } from '../../src/lib/geo/reproject';
+import { lookupCrs } from '../../src/lib/server/crs-registry';
+import { appContext, launchBrowser, screenshot, seedDemoIntoTestServer, signInThroughPage, waitForMap } from '../helpers/browser';
+
+type XY = [number, number];
+const manifest = JSON.parse(readFileSync('data-samples/saltbush-rise.json', 'utf8')) as {
+  crs: string;
+  creeks: { id: string; centrelineXY: XY[] }[];
+};
+const toWgs84 = createToWgs84(lookupCrs(manifest.crs)!.proj4);
+
+/**
+ * A straight fence 300 m long crossing the main creek at `angleDeg` to its downstream direction,
+ * centred on centreline point `index` (a straight reach, away from the demo's own fences).
+ */
+function fenceAcrossCreek(index: number, angleDeg: number): [number, number][] {
+  const line = manifest.creeks.find((c) => c.id === 'main-creek')!.centrelineXY;
+  const [ax, ay] = line[index - 10]!;
+  const [bx, by] = line[index + 10]!;
+  const flow = Math.atan2(by - ay, bx - ax);
+  const heading = flow + (angleDeg * Math.PI) / 180;
+  const [cx, cy] = line[index]!;
+  return [-150, 150].map((d) => toWgs84([cx + d * Math.cos(heading), cy + d * Math.sin(heading)]));
+}
+
+let browser: Browser;
+beforeAll(async () => {
+  seedDemoIntoTestServer();
+  browser = await launchBrowser();
+});
+afterAll(() => browser?.close());
+
+async function openDemo(role: 'manager' | 'crew', viewport?: { width: number; height: number }) {
+  const account = DEMO_ACCOUNTS.find((a) => a.role === role)!;
+  const { context, outsideRequests } = await appContext(browser, { viewport });
+  const page = await context.newPage();
+  await signInThroughPage(page, account.email, DEMO_PASSWORD);
+  await page.waitForURL('**/app');
+  await page.getByRole('link', { name: /Saltbush Rise/ }).first().click();
+  await waitForMap(page);
+  await page.getByTestId('crossing-row').first().waitFor({ timeout: 60_000 });
+  return { page, outsideRequests, close: () => context.close() };
+}
+
+/** Frames the given points on the map and returns their positions on the page. */
+async function framePoints(page: Page, points: [number, number][]): Promise<{ x: number; y: number }[]> {
+  const onScreen = await page.evaluate(async (lonLats) => {
+    const map = window.__gullylineMap!;
+    const lons = lonLats.map((p) => p[0]);
+    const lats = lonLats.map((p) => p[1]);
+    map.fitBounds([Math.min(...lons), Math.min(...lats), Math.max(...lons), Math.max(...lats)], { padding: 120, duration: 0 });
+    await new Promise((resolve) => map.once('idle', resolve));
+    return lonLats.map((p) => map.project(p as [number, number]));
+  }, points);
+  const box = (await page.locator('[data-testid=property-map] canvas').boundingBox())!;
+  return onScreen.map((p) => ({ x: box.x + p.x, y: box.y + p.y }));
+}
+
+async function clickAt(page: Page, at: { x: number; y: number }) {
+  await page.mouse.move(at.x, at.y, { steps: 4 });
+  await page.mouse.click(at.x, at.y);
+  await page.waitForTimeout(150);
+}
+
+describe('drawing and editing the plan', () => {
+  it('draws a fence across the creek by clicks, and the crossing has the constructed angle within 2°', async () => {
+    const { page, outsideRequests, close } = await openDemo('manager');
+    const [start, end] = fenceAcrossCreek(450, 70);
+    const middle: [number, number] = [(start![0] + end![0]) / 2 + 0.0004, (start![1] + end![1]) / 2];
+    const [a, m, b] = await framePoints(page, [start!, middle, end!]);
+
+    await page.getByTestId('draw-fence').click();
+    await clickAt(page, a!);
+    await clickAt(page, m!);
+    const withMiddle = await page.getByTestId('draft-measure').textContent();
+    // Undo takes the middle point back out; redo returns it; undo again for the straight line.
+    await page.getByTestId('draft-undo').click();
+    expect(await page.getByTestId('draft-measure').textContent()).not.toBe(withMiddle);
+    await page.getByTestId('draft-redo').click();
+    await page.getByTestId('draft-undo').click();
+    await clickAt(page, b!);
+    await page.mouse.move(b!.x + 40, b!.y + 40);
+    await screenshot(page, 'plan-drawing');
+    await page.getByTestId('draft-finish').click();
+
+    const form = page.getByTestId('fence-line-form');
+    await form.waitFor();
+    expect(await page.getByTestId('edit-panel').textContent()).toMatch(/New fence line · 3\d\d m/);
+    await form.getByLabel('Name').fill('Drawn across the creek');
+    await form.getByRole('button', { name: 'Save fence line' }).click();
+
+    const detail = page.getByTestId('fence-line-detail');
+    await detail.waitFor({ timeout: 30_000 });
+    expect(await detail.textContent()).toMatch(/Drawn across the creek/);
+    const crossingText = (await detail.getByRole('button', { name: /to the flow/ }).allTextContents()).join(' | ');
+    const angles = [...crossingText.matchAll(/(\d+)° to the flow/g)].map((match) => Number(match[1]));
+    expect(angles.some((angle) => Math.abs(angle - 70) <= 2), `angles found: ${crossingText}`).toBe(true);
+    await screenshot(page, 'plan-drawn-fence');
+    expect(outsideRequests).toEqual([]);
+    await close();
+  }, 180_000);
+
+  it('reshapes a fence by dragging a point, and a stale save is caught with both choices offered', async () => {
+    const { page, close } = await openDemo('manager');
+    const [start, end] = fenceAcrossCreek(430, 90);
+    // Made through the API as the manager's own browser session, then reshaped on the map.
+    const propertyId = Number(new URL(page.url()).pathname.split('/').at(-1));
+    const made = await page.evaluate(
+      async ({ id, coordinates }) => {
+        const response = await fetch(`/api/properties/${id}/fence-lines`, { method: 'POST', headers: { 'Content-Type': 'application/json' }, body: JSON.stringify({ name: 'To be reshaped', coordinates }) });
+        return (await response.json()) as { fenceLine: { id: number; version: number; lengthM: number } };
+      },
+      { id: propertyId, coordinates: [start!, end!] },
+    );
+    await page.reload();
+    await waitForMap(page);
+    await page.getByTestId('fence-row').filter({ hasText: 'To be reshaped' }).click();
+    await page.getByTestId('fence-reshape').click();
+    const [a, b] = await framePoints(page, [start!, end!]);
+
+    // Drag the far end 60 px sideways.
+    await page.mouse.move(b!.x, b!.y, { steps: 3 });
+    await page.mouse.down();
+    await page.mouse.move(b!.x + 30, b!.y, { steps: 5 });
+    await page.mouse.move(b!.x + 60, b!.y, { steps: 5 });
+    await page.mouse.up();
+    await expect.poll(() => page.getByTestId('draft-measure').textContent()).toMatch(/Now: 3\d\d m/);
+    expect(a).toBeDefined();
+
+    // Someone else saves a change first.
+    await page.evaluate(
+      async ({ id, fence }) => {
+        await fetch(`/api/properties/${id}/fence-lines/${fence.id}`, { method: 'PATCH', headers: { 'Content-Type': 'application/json' }, body: JSON.stringify({ name: 'Renamed elsewhere', version: fence.version }) });
+      },
+      { id: propertyId, fence: made.fenceLine },
+    );
+    await page.getByTestId('reshape-save').click();
+    const conflict = page.getByTestId('edit-conflict');
+    await conflict.waitFor();
+    expect(await conflict.textContent()).toMatch(/changed/i);
+    await screenshot(page, 'plan-edit-conflict');
+    await conflict.getByRole('button', { name: 'Save mine over theirs' }).click();
+    await page.getByTestId('workspace-notice').waitFor({ timeout: 30_000 });
+    const saved = await page.evaluate(
+      async ({ id, fenceId }) => ((await (await fetch(`/api/properties/${id}/fence-lines/${fenceId}`)).json()) as { fenceLine: { name: string; version: number; lengthM: number } }).fenceLine,
+      { id: propertyId, fenceId: made.fenceLine.id },
+    );
+    // Their rename and my shape are both kept.
+    expect(saved.name).toBe('Renamed elsewhere');
+    expect(saved.version).toBe(made.fenceLine.version + 2);
+    expect(Math.abs(saved.lengthM - made.fenceLine.lengthM)).toBeGreaterThan(1);
+    await close();
+  }, 180_000);
+
+  it('lists the keyboard shortcuts on "?"', async () => {
+    const { page, close } = await openDemo('manager');
+    await page.keyboard.press('?');
+    const help = page.getByTestId('shortcuts-help');
+    await help.waitFor();
+    expect(await help.textContent()).toMatch(/Draw a fence line/);
+    await page.keyboard.press('f');
+    await page.getByTestId('draft-cancel').waitFor();
+    await page.keyboard.press('Escape');
+    await page.getByTestId('draw-fence').waitFor();
+    await close();
+  }, 120_000);
+
+  it('gives crew no drawing or editing controls', async () => {
+    const { page, close } = await openDemo('crew');
+    await page.getByTestId('fence-row').first().click();
+    await page.getByTestId('fence-line-detail').waitFor();
+    for (const testId of ['edit-toolbar', 'draw-fence', 'fence-reshape', 'fence-delete', 'fence-edit-details', 'track-file', 'paddocks-from-fences']) {
+      expect(await page.getByTestId(testId).count(), testId).toBe(0);
+    }
+    await page.keyboard.press('f');
+    expect(await page.getByTestId('draft-cancel').count()).toBe(0);
+    await close();
+  }, 120_000);
+});
