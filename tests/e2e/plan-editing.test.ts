@@ -1,7 +1,8 @@
 // Drawing and editing the plan in the workspace, as a manager would with a mouse, and the
-// limits a crew member meets. The fence drawn here crosses the demo's main creek at an angle
-// constructed from the generator's creek centreline (data-samples/saltbush-rise.json), so the
-// angle the app finds is checked against geometry made outside it.
+// limits a crew member meets. The fence drawn here is constructed in the test at a chosen angle to
+// the drainage line the map shows (the main creek, found near a point of the generator's creek
+// centreline in data-samples/saltbush-rise.json), so the angle the app reports is checked against
+// geometry made outside it.
 import { readFileSync } from 'node:fs';
 import type { Browser, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
@@ -10,26 +11,48 @@ import { createToWgs84 } from '../../src/lib/geo/reproject';
 import { lookupCrs } from '../../src/lib/server/crs-registry';
 import { appContext, launchBrowser, screenshot, seedDemoIntoTestServer, signInThroughPage, waitForMap } from '../helpers/browser';
 
-type XY = [number, number];
+type LonLat = [number, number];
 const manifest = JSON.parse(readFileSync('data-samples/saltbush-rise.json', 'utf8')) as {
   crs: string;
-  creeks: { id: string; centrelineXY: XY[] }[];
+  creeks: { id: string; centrelineXY: [number, number][] }[];
 };
 const toWgs84 = createToWgs84(lookupCrs(manifest.crs)!.proj4);
+const mainCreekPoint = (index: number): LonLat => toWgs84(manifest.creeks.find((c) => c.id === 'main-creek')!.centrelineXY[index]!);
+
+// Local flat-earth metres about a point: good to well under 0.1° over a few hundred metres.
+const metresPerDegree = (lat: number) => ({ x: 111_320 * Math.cos((lat * Math.PI) / 180), y: 110_574 });
 
 /**
- * A straight fence 300 m long crossing the main creek at `angleDeg` to its downstream direction,
- * centred on centreline point `index` (a straight reach, away from the demo's own fences).
+ * A straight fence `lengthM` long through the middle of the drainage-line segment nearest `near`,
+ * at `angleDeg` to that segment's direction (drainage lines run downstream).
  */
-function fenceAcrossCreek(index: number, angleDeg: number): [number, number][] {
-  const line = manifest.creeks.find((c) => c.id === 'main-creek')!.centrelineXY;
-  const [ax, ay] = line[index - 10]!;
-  const [bx, by] = line[index + 10]!;
-  const flow = Math.atan2(by - ay, bx - ax);
-  const heading = flow + (angleDeg * Math.PI) / 180;
-  const [cx, cy] = line[index]!;
-  return [-150, 150].map((d) => toWgs84([cx + d * Math.cos(heading), cy + d * Math.sin(heading)]));
+function fenceAcrossSegment(lines: LonLat[][], near: LonLat, angleDeg: number, lengthM = 300): { ends: [LonLat, LonLat]; middle: LonLat } {
+  const k = metresPerDegree(near[1]);
+  let best: { a: LonLat; b: LonLat; d: number } | null = null;
+  for (const line of lines) {
+    for (let i = 1; i < line.length; i += 1) {
+      const a = line[i - 1]!;
+      const b = line[i]!;
+      const mid = [(a[0] + b[0]) / 2, (a[1] + b[1]) / 2];
+      const d = Math.hypot((mid[0]! - near[0]) * k.x, (mid[1]! - near[1]) * k.y);
+      if (!best || d < best.d) best = { a, b, d };
+    }
+  }
+  const { a, b } = best!;
+  const middle: LonLat = [(a[0] + b[0]) / 2, (a[1] + b[1]) / 2];
+  const heading = Math.atan2((b[1] - a[1]) * k.y, (b[0] - a[0]) * k.x) + (angleDeg * Math.PI) / 180;
+  const end = (sign: number): LonLat => [middle[0] + (sign * (lengthM / 2) * Math.cos(heading)) / k.x, middle[1] + (sign * (lengthM / 2) * Math.sin(heading)) / k.y];
+  return { ends: [end(-1), end(1)], middle };
 }
+
+async function drainageLines(page: Page, propertyId: number): Promise<LonLat[][]> {
+  return page.evaluate(async (id) => {
+    const collection = (await (await fetch(`/api/properties/${id}/drainage-lines`)).json()) as { features: { geometry: { coordinates: [number, number][] } }[] };
+    return collection.features.map((feature) => feature.geometry.coordinates);
+  }, propertyId);
+}
+
+const propertyIdOf = (page: Page) => Number(new URL(page.url()).pathname.split('/').at(-1));
 
 let browser: Browser;
 beforeAll(async () => {
@@ -56,7 +79,8 @@ async function framePoints(page: Page, points: [number, number][]): Promise<{ x:
     const map = window.__gullylineMap!;
     const lons = lonLats.map((p) => p[0]);
     const lats = lonLats.map((p) => p[1]);
-    map.fitBounds([Math.min(...lons), Math.min(...lats), Math.max(...lons), Math.max(...lats)], { padding: 120, duration: 0 });
+    // Clear of the map key (top left) and the edit toolbar (top right).
+    map.fitBounds([Math.min(...lons), Math.min(...lats), Math.max(...lons), Math.max(...lats)], { padding: { top: 280, left: 300, right: 80, bottom: 60 }, duration: 0 });
     await new Promise((resolve) => map.once('idle', resolve));
     return lonLats.map((p) => map.project(p as [number, number]));
   }, points);
@@ -73,20 +97,21 @@ async function clickAt(page: Page, at: { x: number; y: number }) {
 describe('drawing and editing the plan', () => {
   it('draws a fence across the creek by clicks, and the crossing has the constructed angle within 2°', async () => {
     const { page, outsideRequests, close } = await openDemo('manager');
-    const [start, end] = fenceAcrossCreek(450, 70);
-    const middle: [number, number] = [(start![0] + end![0]) / 2 + 0.0004, (start![1] + end![1]) / 2];
-    const [a, m, b] = await framePoints(page, [start!, middle, end!]);
+    const { ends: [start, end] } = fenceAcrossSegment(await drainageLines(page, propertyIdOf(page)), mainCreekPoint(450), 70);
+    const detour: [number, number] = [end![0] + 0.001, end![1] + 0.001];
+    const [a, b, x] = await framePoints(page, [start!, end!, detour]);
 
     await page.getByTestId('draw-fence').click();
     await clickAt(page, a!);
-    await clickAt(page, m!);
-    const withMiddle = await page.getByTestId('draft-measure').textContent();
-    // Undo takes the middle point back out; redo returns it; undo again for the straight line.
-    await page.getByTestId('draft-undo').click();
-    expect(await page.getByTestId('draft-measure').textContent()).not.toBe(withMiddle);
-    await page.getByTestId('draft-redo').click();
-    await page.getByTestId('draft-undo').click();
     await clickAt(page, b!);
+    await clickAt(page, x!);
+    const withDetour = await page.getByTestId('draft-measure').textContent();
+    // Undo takes the detour back out, redo returns it, undo again leaves the straight line.
+    await page.getByTestId('draft-undo').click();
+    expect(await page.getByTestId('draft-measure').textContent()).not.toBe(withDetour);
+    await page.getByTestId('draft-redo').click();
+    expect(await page.getByTestId('draft-measure').textContent()).toBe(withDetour);
+    await page.getByTestId('draft-undo').click();
     await page.mouse.move(b!.x + 40, b!.y + 40);
     await screenshot(page, 'plan-drawing');
     await page.getByTestId('draft-finish').click();
@@ -100,9 +125,11 @@ describe('drawing and editing the plan', () => {
     const detail = page.getByTestId('fence-line-detail');
     await detail.waitFor({ timeout: 30_000 });
     expect(await detail.textContent()).toMatch(/Drawn across the creek/);
+    // The creek is crossed at the fence's middle, 150 m along.
     const crossingText = (await detail.getByRole('button', { name: /to the flow/ }).allTextContents()).join(' | ');
-    const angles = [...crossingText.matchAll(/(\d+)° to the flow/g)].map((match) => Number(match[1]));
-    expect(angles.some((angle) => Math.abs(angle - 70) <= 2), `angles found: ${crossingText}`).toBe(true);
+    const atCreek = [...crossingText.matchAll(/(\d+) m along: (\d+)° to the flow/g)].find((match) => Math.abs(Number(match[1]) - 150) <= 15);
+    expect(atCreek, `crossings found: ${crossingText}`).toBeDefined();
+    expect(Math.abs(Number(atCreek![2]) - 70)).toBeLessThanOrEqual(2);
     await screenshot(page, 'plan-drawn-fence');
     expect(outsideRequests).toEqual([]);
     await close();
@@ -110,9 +137,9 @@ describe('drawing and editing the plan', () => {
 
   it('reshapes a fence by dragging a point, and a stale save is caught with both choices offered', async () => {
     const { page, close } = await openDemo('manager');
-    const [start, end] = fenceAcrossCreek(430, 90);
+    const propertyId = propertyIdOf(page);
+    const { ends: [start, end] } = fenceAcrossSegment(await drainageLines(page, propertyId), mainCreekPoint(430), 90);
     // Made through the API as the manager's own browser session, then reshaped on the map.
-    const propertyId = Number(new URL(page.url()).pathname.split('/').at(-1));
     const made = await page.evaluate(
       async ({ id, coordinates }) => {
         const response = await fetch(`/api/properties/${id}/fence-lines`, { method: 'POST', headers: { 'Content-Type': 'application/json' }, body: JSON.stringify({ name: 'To be reshaped', coordinates }) });

@@ -29,6 +29,8 @@ type Props = {
   /** The shape as it is now, while drawing (with the point under the pointer) or reshaping. */
   onShapeChange: (shape: DraftShape | null) => void;
   onHistoryChange: (history: { canUndo: boolean; canRedo: boolean }) => void;
+  /** A shape given to reshape could not be put on the drawing layer. */
+  onLoadFailed: (message: string) => void;
   controlsRef: Ref<DrawControls>;
 };
 
@@ -43,22 +45,25 @@ function shapeOf(draw: TerraDraw): DraftShape | null {
   return null;
 }
 
+/** Terra Draw refuses coordinates finer than its precision (9 decimals, about 0.1 mm). */
+const toPrecision = (positions: LonLat[]): LonLat[] => positions.map(([lon, lat]) => [Number(lon.toFixed(9)), Number(lat.toFixed(9))]);
+
 function toFeature(draw: TerraDraw, shape: DraftShape) {
   return shape.kind === 'fence'
-    ? { id: draw.getFeatureId(), type: 'Feature' as const, properties: { mode: DRAW_MODES.fence }, geometry: { type: 'LineString' as const, coordinates: shape.coordinates } }
-    : { id: draw.getFeatureId(), type: 'Feature' as const, properties: { mode: DRAW_MODES.paddock }, geometry: { type: 'Polygon' as const, coordinates: [shape.ring] } };
+    ? { id: draw.getFeatureId(), type: 'Feature' as const, properties: { mode: DRAW_MODES.fence }, geometry: { type: 'LineString' as const, coordinates: toPrecision(shape.coordinates) } }
+    : { id: draw.getFeatureId(), type: 'Feature' as const, properties: { mode: DRAW_MODES.paddock }, geometry: { type: 'Polygon' as const, coordinates: [toPrecision(shape.ring)] } };
 }
 
 /**
  * The drawing layer on the map (Terra Draw). Rendered inside the map; the workspace drives it
  * through `tool` and hears back through the callbacks, so the map's own layers stay the saved plan.
  */
-export default function PlanDrawing({ tool, snapTargets, onFinished, onShapeChange, onHistoryChange, controlsRef }: Props) {
+export default function PlanDrawing({ tool, snapTargets, onFinished, onShapeChange, onHistoryChange, onLoadFailed, controlsRef }: Props) {
   const { current: mapRef } = useMap();
   const drawRef = useRef<TerraDraw | null>(null);
   // Callbacks and targets are read through refs so the Terra Draw instance is made only once.
-  const latest = useRef({ snapTargets, onFinished, onShapeChange, onHistoryChange });
-  latest.current = { snapTargets, onFinished, onShapeChange, onHistoryChange };
+  const latest = useRef({ snapTargets, onFinished, onShapeChange, onHistoryChange, onLoadFailed });
+  latest.current = { snapTargets, onFinished, onShapeChange, onHistoryChange, onLoadFailed };
 
   useEffect(() => {
     const map = mapRef?.getMap();
@@ -111,6 +116,8 @@ export default function PlanDrawing({ tool, snapTargets, onFinished, onShapeChan
       if (result?.valid) {
         draw.setMode(DRAW_MODES.reshape);
         draw.selectFeature(feature.id);
+      } else {
+        latest.current.onLoadFailed(`This shape cannot be reshaped on the map (${result?.reason ?? 'not accepted'}).`);
       }
     }
     latest.current.onShapeChange(shapeOf(draw));

@@ -188,7 +188,14 @@ export function usePlanEditor({ propertyId, onSaved }: Options) {
     saveNewFence,
     saveNewPaddock,
     saveShape,
-    drawingProps: { tool, onFinished, onShapeChange: setShape, onHistoryChange: setHistory, controlsRef },
+    drawingProps: {
+      tool,
+      onFinished,
+      onShapeChange: setShape,
+      onHistoryChange: setHistory,
+      onLoadFailed: (message: string) => setError({ message, fields: {} }),
+      controlsRef,
+    },
   };
 }
 
