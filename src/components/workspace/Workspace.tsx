@@ -10,7 +10,7 @@ import TerrainOverlay, { type TerrainRunLayer, type TerrainVisibility } from '..
 import { withQueryClient } from '../QueryRoot';
 import CrossingDetail, { crossingDetailQuery, type RealignmentPreview } from './CrossingDetail';
 import CrossingsPanel from './CrossingsPanel';
-import { FENCE_STATUS_STYLES, LAYOUT_MIN_ZOOM, LAYOUT_VIEW_ZOOM, fenceStatusLayers } from '../map/plan-layers';
+import { LAYOUT_MIN_ZOOM, LAYOUT_VIEW_ZOOM, fenceStatusLayers } from '../map/plan-layers';
 import TracksOverlay from '../map/TracksOverlay';
 import { EditPanel } from './editing/EditPanel';
 import { EditToolbar } from './editing/EditToolbar';
@@ -20,7 +20,9 @@ import PlanDrawing from './editing/PlanDrawing';
 import { ShortcutsHelp, useWorkspaceShortcuts } from './editing/shortcuts';
 import { TracksPanel } from './editing/TracksPanel';
 import { usePlanEditor } from './editing/use-plan-editor';
+import { FenceLinesSummary } from './FenceLinesSummary';
 import LayerToggles, { type PlanVisibility } from './LayerToggles';
+import { WorkspaceSheet, type SheetSection } from './WorkspaceSheet';
 import TerrainPanel from './TerrainPanel';
 
 type Props = {
@@ -37,8 +39,6 @@ const MAP_PICKABLE_LAYER_IDS = [...CROSSING_INTERACTIVE_LAYER_IDS, ...FENCE_LAYE
 
 /** After a terrain run, crossings are analysed again for up to this long; the list polls meanwhile. */
 const ANALYSIS_WAIT_MS = 60_000;
-
-const isWideScreen = () => window.matchMedia('(min-width: 768px)').matches;
 
 /** Where the map goes for a crossing: close enough for a designed one's layout to show. */
 const focusOn = (position: number[], crossing: CrossingSummaryView) => ({
@@ -90,7 +90,6 @@ function Workspace({ propertyId, propertyName, extentWgs84, canEdit, children }:
 
   const [selectedId, setSelectedId] = useState<number | null>(null);
   const [revealSeq, setRevealSeq] = useState(0);
-  const mapSectionRef = useRef<HTMLElement>(null);
   const [focus, setFocus] = useState<{ position: LonLat; zoom: number; seq: number } | null>(null);
   const [realignment, setRealignment] = useState<RealignmentPreview | null>(null);
   const [notice, setNotice] = useState<string | null>(null);
@@ -110,6 +109,8 @@ function Workspace({ propertyId, propertyName, extentWgs84, canEdit, children }:
     },
   });
   const [showHelp, setShowHelp] = useState(false);
+  // With no terrain yet, the first thing to do is upload an elevation model.
+  const [section, setSection] = useState<SheetSection>(() => (extentWgs84 ? 'crossings' : 'terrain'));
   useWorkspaceShortcuts({ editor, canEdit, onHelp: () => setShowHelp((shown) => !shown) });
   // Fences join end to end and follow walked tracks: both are snap targets while drawing.
   const snapTargets = useMemo(
@@ -133,10 +134,8 @@ function Workspace({ propertyId, propertyName, extentWgs84, canEdit, children }:
       setSelectedId(crossingId);
       setNotice(null);
       setRealignment((preview) => (preview?.crossingId === crossingId ? preview : null));
-      // Side by side the panel scrolls to the detail. On a phone the detail opens right under the
-      // map: from the list the page goes back up to the map, from the map it stays where it is.
-      if (isWideScreen()) setRevealSeq((seq) => seq + 1);
-      else if (from === 'list') mapSectionRef.current?.scrollIntoView({ block: 'start', behavior: 'smooth' });
+      // The panels scroll up to the detail, which sits above every section.
+      setRevealSeq((seq) => seq + 1);
       if (from === 'list') {
         const feature = crossings.data?.features.find((f) => f.properties.id === crossingId);
         if (feature) setFocus(focusOn(feature.geometry.coordinates, feature.properties));
@@ -152,8 +151,6 @@ function Workspace({ propertyId, propertyName, extentWgs84, canEdit, children }:
       if (FENCE_LAYER_IDS.includes(feature.layer.id)) {
         setSelectedFenceId(id);
         setNotice(null);
-        if (!isWideScreen()) return;
-        setRevealSeq((seq) => seq + 1);
       } else select(id, 'map');
     },
     [select],
@@ -207,9 +204,9 @@ function Workspace({ propertyId, propertyName, extentWgs84, canEdit, children }:
   const editing = editor.task !== null;
 
   return (
-    // On a phone the map and the panels scroll as one page; side by side each keeps its own height.
-    <div className="flex min-h-0 flex-1 flex-col overflow-y-auto md:flex-row md:overflow-hidden">
-      <section ref={mapSectionRef} className="relative min-h-[55vh] flex-1 md:min-h-0" aria-label="Map of the property">
+    // On a phone the panels are a sheet under the map; side by side each keeps its own height.
+    <div className="flex min-h-0 flex-1 flex-col overflow-hidden md:flex-row">
+      <section className="relative min-h-0 flex-1" aria-label="Map of the property">
         <PropertyMap
           propertyName={propertyName}
           extentWgs84={extent}
@@ -257,157 +254,108 @@ function Workspace({ propertyId, propertyName, extentWgs84, canEdit, children }:
           />
         )}
       </section>
-      <aside
-        className="flex w-full shrink-0 flex-col gap-4 border-t border-sand-200 bg-sand-50 p-4 md:w-96 md:shrink md:overflow-y-auto md:border-l md:border-t-0 lg:w-[28rem]"
-        aria-label="Property panels"
-        data-testid="workspace-panels"
-      >
-        <p className="sr-only" role="status">{announcement}</p>
-        {showHelp && <ShortcutsHelp canEdit={canEdit} onClose={() => setShowHelp(false)} />}
-        {canEdit && <EditPanel editor={editor} fenceCount={(fenceLines.data ?? []).length} paddockCount={(paddocks.data ?? []).length} />}
-        {notice && !selected && (
-          <p className="rounded-lg border border-saltbush-500 bg-saltbush-100 px-4 py-3 text-sm" role="status" data-testid="workspace-notice">
-            {notice}
-          </p>
-        )}
-        {selectedFence && !editing && (
-          <div className="order-first md:order-none">
-            <FenceLinePanel
-              key={selectedFence.id}
-              propertyId={propertyId}
-              fence={selectedFence}
+      <WorkspaceSheet
+        section={section}
+        onSection={setSection}
+        counts={{ crossings: crossingList.filter((c) => c.kind !== 'runs-along').length }}
+        top={
+          <>
+            <p className="sr-only" role="status">{announcement}</p>
+            {showHelp && <ShortcutsHelp canEdit={canEdit} onClose={() => setShowHelp(false)} />}
+            {canEdit && <EditPanel editor={editor} fenceCount={(fenceLines.data ?? []).length} paddockCount={(paddocks.data ?? []).length} />}
+            {notice && !selected && (
+              <p className="rounded-lg border border-saltbush-500 bg-saltbush-100 px-4 py-3 text-sm" role="status" data-testid="workspace-notice">
+                {notice}
+              </p>
+            )}
+            {selectedFence && !editing && (
+              <FenceLinePanel
+                key={selectedFence.id}
+                propertyId={propertyId}
+                fence={selectedFence}
+                crossings={crossingList}
+                canEdit={canEdit}
+                onReshape={() => editor.startReshape({ fence: selectedFence })}
+                onClose={() => setSelectedFenceId(null)}
+                onSelectCrossing={(id) => select(id, 'list')}
+              />
+            )}
+            {selected && (
+              <CrossingDetail
+                key={selected.id}
+                propertyId={propertyId}
+                summary={selected}
+                canEdit={canEdit}
+                onClose={() => {
+                  setSelectedId(null);
+                  setRealignment(null);
+                  setNotice(null);
+                }}
+                notice={notice}
+                onShowOnMap={() => selectedPosition && setFocus(focusOn(selectedPosition, selected))}
+                realignment={realignment?.crossingId === selected.id ? realignment : null}
+                onRealignmentChange={(preview) => {
+                  setRealignment(preview);
+                  // Close enough to see the dog-leg beside the old line.
+                  if (preview && selectedPosition) setFocus({ ...focusOn(selectedPosition, selected), zoom: LAYOUT_VIEW_ZOOM });
+                }}
+                onRealigned={onRealigned}
+                revealSeq={revealSeq}
+              />
+            )}
+          </>
+        }
+        sections={{
+          crossings: (
+            <CrossingsPanel
               crossings={crossingList}
-              canEdit={canEdit}
-              onReshape={() => editor.startReshape({ fence: selectedFence })}
-              onClose={() => setSelectedFenceId(null)}
-              onSelectCrossing={(id) => select(id, 'list')}
+              fenceLines={fenceLines.data ?? []}
+              loading={crossings.isPending}
+              error={crossings.error}
+              hasTerrain={runs.length > 0}
+              selectedId={selectedId}
+              onSelect={(id) => select(id, 'list')}
             />
-          </div>
-        )}
-        {selected && (
-          // On a phone the open crossing comes first, right under the map.
-          <div className="order-first md:order-none">
-            <CrossingDetail
-              key={selected.id}
+          ),
+          plan: (
+            <>
+              <FenceLinesSummary
+                fenceLines={fenceLines.data ?? []}
+                loading={fenceLines.isPending}
+                error={fenceLines.error}
+                crossings={crossingList}
+                onSelect={(id) => {
+                  setSelectedFenceId(id);
+                  setNotice(null);
+                }}
+              />
+              <PaddocksPanel
+                propertyId={propertyId}
+                paddocks={paddocks.data ?? []}
+                loading={paddocks.isPending}
+                canEdit={canEdit}
+                hasFences={(fenceLines.data ?? []).length > 0}
+                onReshape={(paddock) => editor.startReshape({ paddock })}
+              />
+            </>
+          ),
+          terrain: <TerrainPanel propertyId={propertyId} canEdit={canEdit} models={models.data ?? []} loading={models.isPending} />,
+          files: (
+            <TracksPanel
               propertyId={propertyId}
-              summary={selected}
+              tracks={tracks.data ?? []}
+              loading={tracks.isPending}
               canEdit={canEdit}
-              onClose={() => {
-                setSelectedId(null);
-                setRealignment(null);
-                setNotice(null);
+              onFenceMade={(fenceLine) => {
+                setSelectedFenceId(fenceLine.id);
+                setSection('plan');
               }}
-              notice={notice}
-              onShowOnMap={() => selectedPosition && setFocus(focusOn(selectedPosition, selected))}
-              realignment={realignment?.crossingId === selected.id ? realignment : null}
-              onRealignmentChange={(preview) => {
-                setRealignment(preview);
-                // Close enough to see the dog-leg beside the old line.
-                if (preview && selectedPosition) setFocus({ ...focusOn(selectedPosition, selected), zoom: LAYOUT_VIEW_ZOOM });
-              }}
-              onRealigned={onRealigned}
-              revealSeq={revealSeq}
             />
-          </div>
-        )}
-        <TerrainPanel propertyId={propertyId} canEdit={canEdit} models={models.data ?? []} loading={models.isPending} />
-        <FenceLinesSummary
-          fenceLines={fenceLines.data ?? []}
-          loading={fenceLines.isPending}
-          error={fenceLines.error}
-          crossings={crossingList}
-          onSelect={(id) => {
-            setSelectedFenceId(id);
-            setNotice(null);
-          }}
-        />
-        <CrossingsPanel
-          crossings={crossingList}
-          fenceLines={fenceLines.data ?? []}
-          loading={crossings.isPending}
-          error={crossings.error}
-          hasTerrain={runs.length > 0}
-          selectedId={selectedId}
-          onSelect={(id) => select(id, 'list')}
-        />
-        <TracksPanel
-          propertyId={propertyId}
-          tracks={tracks.data ?? []}
-          loading={tracks.isPending}
-          canEdit={canEdit}
-          onFenceMade={(fenceLine) => setSelectedFenceId(fenceLine.id)}
-        />
-        <PaddocksPanel
-          propertyId={propertyId}
-          paddocks={paddocks.data ?? []}
-          loading={paddocks.isPending}
-          canEdit={canEdit}
-          hasFences={(fenceLines.data ?? []).length > 0}
-          onReshape={(paddock) => editor.startReshape({ paddock })}
-        />
-        {children}
-      </aside>
+          ),
+        }}
+        footer={children}
+      />
     </div>
-  );
-}
-
-const kmFormat = new Intl.NumberFormat('en-AU', { minimumFractionDigits: 1, maximumFractionDigits: 1 });
-
-/** How many fence lines, how long in all, and each with its status and crossings. */
-function FenceLinesSummary({
-  fenceLines,
-  loading,
-  error,
-  crossings,
-  onSelect,
-}: {
-  fenceLines: FenceLine[];
-  loading: boolean;
-  error: Error | null;
-  crossings: CrossingSummaryView[];
-  onSelect: (fenceLineId: number) => void;
-}) {
-  const totalKm = fenceLines.reduce((sum, fence) => sum + fence.lengthM, 0) / 1000;
-  return (
-    <section className="card p-4" aria-labelledby="fences-heading">
-      <h2 id="fences-heading" className="font-bold">Fence lines</h2>
-      {loading ? (
-        <p className="mt-1 text-sm text-bark-700">Loading…</p>
-      ) : error ? (
-        <p className="alert-error mt-2 text-sm" role="alert">The fence lines could not be loaded: {error.message}</p>
-      ) : fenceLines.length === 0 ? (
-        <p className="mt-1 text-sm text-bark-700">No fence lines yet.</p>
-      ) : (
-        <>
-          <p className="mt-1 text-sm text-bark-700">
-            {fenceLines.length} {fenceLines.length === 1 ? 'fence line' : 'fence lines'}, {kmFormat.format(totalKm)} km in all.
-          </p>
-          <ul className="mt-2 flex flex-col divide-y divide-sand-200 text-sm">
-            {fenceLines.map((fence) => {
-              const count = crossings.filter((c) => c.fenceLineId === fence.id && c.kind !== 'runs-along').length;
-              return (
-                <li key={fence.id}>
-                  <button
-                    type="button"
-                    className="flex min-h-11 w-full items-center justify-between gap-2 py-1.5 text-left hover:bg-sand-100"
-                    onClick={() => onSelect(fence.id)}
-                    data-testid="fence-row"
-                  >
-                    <span className="min-w-0">
-                      <span className="block truncate font-semibold">{fence.name}</span>
-                      <span className="text-bark-700">
-                        {FENCE_STATUS_STYLES[fence.status].label} · {count} {count === 1 ? 'crossing' : 'crossings'}
-                      </span>
-                    </span>
-                    <span className="shrink-0 tabular-nums">{kmFormat.format(fence.lengthM / 1000)} km</span>
-                  </button>
-                </li>
-              );
-            })}
-          </ul>
-        </>
-      )}
-    </section>
   );
 }
 
