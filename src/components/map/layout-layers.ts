@@ -53,7 +53,7 @@ export const layoutPostLayer: CircleLayer = {
   paint: {
     // Zoom must lead the expression, so the kind is chosen at each zoom stop.
     'circle-radius': byZoom(15, postRadius(2.5, 4.5, 3.5), 18, postRadius(4, 7, 5.5)),
-    'circle-color': ['case', ['==', ['get', 'kind'], 'line-post'], '#6b5443', PLAN_COLOURS.ink],
+    'circle-color': ['case', ['==', ['get', 'kind'], 'line-post'], PLAN_COLOURS.linePost, PLAN_COLOURS.ink],
     'circle-stroke-color': MAP_COLOURS.casing,
     'circle-stroke-width': ['case', ['==', ['get', 'braced'], true], 2.5, 1.5],
   },

@@ -20,8 +20,10 @@ export const PLAN_COLOURS = {
   angle: { good: '#0072B2', fair: '#E69F00', poor: '#D55E00' } satisfies Record<AngleClass, string>,
   /** Crossings without an angle (a fence running along a channel). */
   angleNone: '#6b5443',
-  /** Dark outline of fair and poor crossings, and of the layout's posts. */
+  /** Dark outline of fair and poor crossings; floodgate posts and end strainers. */
   ink: '#2b211a',
+  /** Line posts of a layout, outside the floodgate (bark brown). */
+  linePost: '#6b5443',
   casing: MAP_COLOURS.casing,
   /** The dashed preview of a realigned fence (Okabe–Ito bluish green, apart from every status). */
   realign: '#009E73',
