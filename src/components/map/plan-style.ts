@@ -39,7 +39,9 @@ export const FENCE_STATUS_STYLES: Record<FenceStatus, { label: string; colour: s
   approved: { label: 'Approved', colour: '#7a4219', widthPx: 3.5, dash: [4, 1.2] },
   building: { label: 'Being built', colour: '#4a3a2e', widthPx: 4, dash: [4, 1, 1, 1] },
   built: { label: 'Built', colour: '#2b211a', widthPx: 4, dash: [] },
-  retired: { label: 'Retired', colour: '#7d776d', widthPx: 2.5, dash: [0.6, 1.6] },
+  // Weathered-wire grey, a little cool: a warm grey sank into the realignment's green for
+  // deuteranopes (tests/lib/map/palette.test.ts).
+  retired: { label: 'Retired', colour: '#737386', widthPx: 2.5, dash: [0.6, 1.6] },
 };
 
 export const FENCE_LINES_SOURCE_ID = 'plan-fence-lines';
