@@ -58,6 +58,8 @@ describe('the crossing profile chart', () => {
       expect(box.height).toBeGreaterThan(150);
       const panel = (await page.getByTestId('crossing-detail').boundingBox())!;
       expect(box.x + box.width).toBeLessThanOrEqual(panel.x + panel.width);
+      // Nor does anything of the chart widen the page (its screen-reader table once did).
+      expect(await page.evaluate(() => document.documentElement.scrollWidth - document.documentElement.clientWidth)).toBeLessThanOrEqual(0);
       const painted = await canvas.evaluate((element) => {
         const canvasElement = element as HTMLCanvasElement;
         const pixels = canvasElement.getContext('2d')!.getImageData(0, 0, canvasElement.width, canvasElement.height).data;

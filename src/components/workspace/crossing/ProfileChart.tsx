@@ -323,25 +323,28 @@ function ProfileTable({ chart }: { chart: ProfileChartData }) {
   if (end) rows.push(['End strainer, far side', formatOffset(end.xM), height(end.groundM)]);
   for (const tie of chart.marks.filter((mark) => mark.kind === 'breakaway-tie')) rows.push(['Breakaway tie', formatOffset(tie.xM), height(tie.groundM)]);
   rows.push(['Posts between', `${count('post') + count('stayed-post')}, of which ${count('stayed-post')} stayed`, '']);
+  // Hidden by a wrapper: a table sizes to its content whatever its own width, and would widen the page.
   return (
-    <table className="sr-only">
-      <caption>Figures of the ground profile, in metres from the crossing</caption>
-      <thead>
-        <tr>
-          <th scope="col">What</th>
-          <th scope="col">Where</th>
-          <th scope="col">Height</th>
-        </tr>
-      </thead>
-      <tbody>
-        {rows.map(([what, where, heightText]) => (
-          <tr key={what + where}>
-            <th scope="row">{what}</th>
-            <td>{where}</td>
-            <td>{heightText}</td>
+    <div className="sr-only">
+      <table>
+        <caption>Figures of the ground profile, in metres from the crossing</caption>
+        <thead>
+          <tr>
+            <th scope="col">What</th>
+            <th scope="col">Where</th>
+            <th scope="col">Height</th>
           </tr>
-        ))}
-      </tbody>
-    </table>
+        </thead>
+        <tbody>
+          {rows.map(([what, where, heightText]) => (
+            <tr key={what + where}>
+              <th scope="row">{what}</th>
+              <td>{where}</td>
+              <td>{heightText}</td>
+            </tr>
+          ))}
+        </tbody>
+      </table>
+    </div>
   );
 }
