@@ -9,8 +9,8 @@ import {
   FENCE_LINES_SOURCE_ID,
   FLOODGATE_SOURCE_ID,
   LAYOUT_ICONS,
+  LAYOUT_ICON_COLOURS,
   LAYOUT_POINTS_SOURCE_ID,
-  PLAN_COLOURS,
   REALIGN_SOURCE_ID,
   crossingDotLayer,
   crossingHitLayer,
@@ -27,7 +27,6 @@ import {
   realignLineLayer,
   selectedCrossingLayers,
 } from './plan-layers';
-import { MAP_COLOURS } from './theme';
 
 export { CROSSING_INTERACTIVE_LAYER_IDS } from './plan-layers';
 
@@ -186,18 +185,19 @@ function addLayoutIcons(map: MaplibreMap): void {
     paint(ctx, ICON_PX);
     map.addImage(id, ctx.getImageData(0, 0, ICON_PX, ICON_PX), { pixelRatio: ICON_RATIO });
   };
+  const { endStrainer, flexRunStrainer, breakawayTie } = LAYOUT_ICON_COLOURS;
   // End strainer: a solid dark square with a pale rim.
   draw(LAYOUT_ICONS.endStrainer, (ctx, size) => {
-    ctx.fillStyle = MAP_COLOURS.casing;
+    ctx.fillStyle = endStrainer.rim;
     ctx.fillRect(2, 2, size - 4, size - 4);
-    ctx.fillStyle = PLAN_COLOURS.ink;
+    ctx.fillStyle = endStrainer.fill;
     ctx.fillRect(6, 6, size - 12, size - 12);
   });
   // Flex-run strainer: an open square.
   draw(LAYOUT_ICONS.flexRunStrainer, (ctx, size) => {
-    ctx.fillStyle = MAP_COLOURS.casing;
+    ctx.fillStyle = flexRunStrainer.rim;
     ctx.fillRect(3, 3, size - 6, size - 6);
-    ctx.strokeStyle = PLAN_COLOURS.ink;
+    ctx.strokeStyle = flexRunStrainer.outline;
     ctx.lineWidth = 5;
     ctx.strokeRect(8, 8, size - 16, size - 16);
   });
@@ -212,11 +212,11 @@ function addLayoutIcons(map: MaplibreMap): void {
       ctx.lineTo(inset, half);
       ctx.closePath();
     };
-    ctx.fillStyle = MAP_COLOURS.casing;
+    ctx.fillStyle = breakawayTie.rim;
     diamond(1);
     ctx.fill();
-    ctx.fillStyle = PLAN_COLOURS.tie;
-    ctx.strokeStyle = PLAN_COLOURS.ink;
+    ctx.fillStyle = breakawayTie.fill;
+    ctx.strokeStyle = breakawayTie.outline;
     ctx.lineWidth = 2.5;
     diamond(6);
     ctx.fill();

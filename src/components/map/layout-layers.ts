@@ -22,6 +22,16 @@ export const LAYOUT_ICONS = {
   breakawayTie: 'plan-icon-breakaway-tie',
 } as const;
 
+/**
+ * The icons' colours (`PlanOverlay` paints them): each stands on a pale rim; the tie's diamond has
+ * a dark outline, which carries its contrast with the ground where its own colour is too light.
+ */
+export const LAYOUT_ICON_COLOURS = {
+  endStrainer: { fill: PLAN_COLOURS.ink, rim: MAP_COLOURS.casing },
+  flexRunStrainer: { outline: PLAN_COLOURS.ink, rim: MAP_COLOURS.casing },
+  breakawayTie: { fill: PLAN_COLOURS.tie, outline: PLAN_COLOURS.ink, rim: MAP_COLOURS.casing },
+} as const;
+
 const kindIs = (...kinds: LayoutPointKind[]): Filter => ['in', ['get', 'kind'], ['literal', kinds]] as Filter;
 
 /** The floodgate's stretch (floodgate post to floodgate post), a broad translucent band under the posts. */
@@ -53,7 +63,7 @@ export const layoutPostLayer: CircleLayer = {
   paint: {
     // Zoom must lead the expression, so the kind is chosen at each zoom stop.
     'circle-radius': byZoom(15, postRadius(2.5, 4.5, 3.5), 18, postRadius(4, 7, 5.5)),
-    'circle-color': ['case', ['==', ['get', 'kind'], 'line-post'], '#6b5443', PLAN_COLOURS.ink],
+    'circle-color': ['case', ['==', ['get', 'kind'], 'line-post'], PLAN_COLOURS.linePost, PLAN_COLOURS.ink],
     'circle-stroke-color': MAP_COLOURS.casing,
     'circle-stroke-width': ['case', ['==', ['get', 'braced'], true], 2.5, 1.5],
   },

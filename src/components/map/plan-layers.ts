@@ -21,4 +21,4 @@ export {
   crossingRingLayer,
   selectedCrossingLayers,
 } from './crossing-layers';
-export { LAYOUT_ICONS, floodgateBandLayer, layoutLabelLayer, layoutMarkerLayer, layoutPostLayer } from './layout-layers';
+export { LAYOUT_ICONS, LAYOUT_ICON_COLOURS, floodgateBandLayer, layoutLabelLayer, layoutMarkerLayer, layoutPostLayer } from './layout-layers';

@@ -20,8 +20,10 @@ export const PLAN_COLOURS = {
   angle: { good: '#0072B2', fair: '#E69F00', poor: '#D55E00' } satisfies Record<AngleClass, string>,
   /** Crossings without an angle (a fence running along a channel). */
   angleNone: '#6b5443',
-  /** Dark outline of fair and poor crossings, and of the layout's posts. */
+  /** Dark outline of fair and poor crossings; floodgate posts and end strainers. */
   ink: '#2b211a',
+  /** Line posts of a layout, outside the floodgate (bark brown). */
+  linePost: '#6b5443',
   casing: MAP_COLOURS.casing,
   /** The dashed preview of a realigned fence (Okabe–Ito bluish green, apart from every status). */
   realign: '#009E73',
@@ -37,7 +39,9 @@ export const FENCE_STATUS_STYLES: Record<FenceStatus, { label: string; colour: s
   approved: { label: 'Approved', colour: '#7a4219', widthPx: 3.5, dash: [4, 1.2] },
   building: { label: 'Being built', colour: '#4a3a2e', widthPx: 4, dash: [4, 1, 1, 1] },
   built: { label: 'Built', colour: '#2b211a', widthPx: 4, dash: [] },
-  retired: { label: 'Retired', colour: '#7d776d', widthPx: 2.5, dash: [0.6, 1.6] },
+  // Weathered-wire grey, a little cool: a warm grey sank into the realignment's green for
+  // deuteranopes (tests/lib/map/palette.test.ts).
+  retired: { label: 'Retired', colour: '#737386', widthPx: 2.5, dash: [0.6, 1.6] },
 };
 
 export const FENCE_LINES_SOURCE_ID = 'plan-fence-lines';

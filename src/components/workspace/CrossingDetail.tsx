@@ -84,7 +84,7 @@ export default function CrossingDetail({ propertyId, summary, canEdit, onClose, 
           <KindNote crossing={crossing} />
           <CatchmentSection crossing={crossing} />
           {isDesigned(design) ? (
-            <DesignSections design={design} onEditInputs={editInputs} />
+            <DesignSections design={design} crossing={crossing} onEditInputs={editInputs} />
           ) : design && 'problem' in design ? (
             <>
               <DesignProblem designStatus={crossing.designStatus} design={design} canEdit={canEdit} />

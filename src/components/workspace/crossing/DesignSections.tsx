@@ -1,13 +1,20 @@
-import type { DesignedCrossingView } from '../../../lib/schemas/crossing-view';
+import type { CrossingSummaryView, DesignedCrossingView } from '../../../lib/schemas/crossing-view';
 import { FloodSection } from './FloodSection';
 import { LayoutSection } from './LayoutSection';
 import { MaterialsSection } from './MaterialsSection';
-import { ProfileSketch } from './ProfileSketch';
+import { ProfileChart } from './ProfileChart';
 import { DesignWarnings } from './WarningsAndCautions';
 import { WireAndLoadsSection } from './WireAndLoadsSection';
 
+type Props = {
+  design: DesignedCrossingView;
+  /** Where the crossing is on its fence: the profile chart measures from it and names the fence. */
+  crossing: Pick<CrossingSummaryView, 'chainageM' | 'fenceName'>;
+  onEditInputs?: () => void;
+};
+
 /** A designed crossing, in the order a builder reads it: ground, flood, layout, checks, materials, warnings. */
-export function DesignSections({ design, onEditInputs }: { design: DesignedCrossingView; onEditInputs?: () => void }) {
+export function DesignSections({ design, crossing, onEditInputs }: Props) {
   return (
     <>
       {design.provisional && (
@@ -16,7 +23,7 @@ export function DesignSections({ design, onEditInputs }: { design: DesignedCross
           the place on foot, in dry weather, before building.
         </p>
       )}
-      {design.profile && design.profile.length > 1 && <ProfileSketch design={design} />}
+      {design.profile && design.profile.length > 1 && <ProfileChart design={design} crossingChainageM={crossing.chainageM} fenceName={crossing.fenceName} />}
       <FloodSection floods={design.floods} onEditInputs={onEditInputs} />
       <LayoutSection layout={design.layout} />
       <WireAndLoadsSection wireCheck={design.wireCheck} loads={design.loads} />
