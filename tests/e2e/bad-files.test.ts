@@ -34,6 +34,7 @@ describe('bad files through the workspace', () => {
     const before = await holdings(page, propertyId);
 
     // A PNG renamed .tif.
+    await page.getByTestId('sheet-tab-terrain').click();
     const png = Buffer.from('89504e470d0a1a0a0000000d49484452000000010000000108060000001f15c489', 'hex');
     await page.locator('#elevation-file').setInputFiles({ name: 'paddock-photo.tif', mimeType: 'image/tiff', buffer: png });
     await page.getByRole('button', { name: /Upload and find drainage lines/ }).click();
@@ -42,6 +43,7 @@ describe('bad files through the workspace', () => {
     expect(await terrainAlert.textContent()).toMatch(/GeoTIFF/i);
 
     // An empty GPX file.
+    await page.getByTestId('sheet-tab-files').click();
     await page.getByTestId('track-file').setInputFiles({ name: 'walk.gpx', mimeType: 'application/gpx+xml', buffer: Buffer.from('') });
     const tracksAlert = page.getByTestId('tracks-error');
     await tracksAlert.waitFor();

@@ -45,6 +45,7 @@ describe('the demo property', () => {
     await page.waitForURL('**/app');
     await page.getByRole('link', { name: /Saltbush Rise/ }).click();
     await waitForMap(page);
+    await page.getByTestId('sheet-tab-terrain').click();
     await page.getByLabel('Elevation model (GeoTIFF)').setInputFiles('data-samples/saltbush-rise-dem.tif');
     await page.getByRole('button', { name: 'Upload and find drainage lines' }).click();
     // The bar shows the upload and then each stage of the terrain run.
@@ -75,6 +76,7 @@ describe('the demo property', () => {
     await signInThroughPage(page, viewer.email, DEMO_PASSWORD);
     await page.waitForURL('**/app');
     await page.getByRole('link', { name: /Saltbush Rise/ }).click();
+    await page.getByTestId('sheet-tab-terrain').click();
     await page.getByTestId('terrain-panel').waitFor();
     expect(await page.getByLabel('Elevation model (GeoTIFF)').count()).toBe(0);
     expect(await page.getByRole('button', { name: /Run again|Cancel run/ }).count()).toBe(0);

@@ -149,6 +149,7 @@ describe('drawing and editing the plan', () => {
     );
     await page.reload();
     await waitForMap(page);
+    await page.getByTestId('sheet-tab-plan').click();
     await page.getByTestId('fence-row').filter({ hasText: 'To be reshaped' }).click();
     await page.getByTestId('fence-reshape').click();
     const [a, b] = await framePoints(page, [start!, end!]);
@@ -202,6 +203,7 @@ describe('drawing and editing the plan', () => {
 
   it('gives crew no drawing or editing controls', async () => {
     const { page, close } = await openDemo('crew');
+    await page.getByTestId('sheet-tab-plan').click();
     await page.getByTestId('fence-row').first().click();
     await page.getByTestId('fence-line-detail').waitFor();
     for (const testId of ['edit-toolbar', 'draw-fence', 'fence-reshape', 'fence-delete', 'fence-edit-details', 'track-file', 'paddocks-from-fences']) {

@@ -15,3 +15,6 @@ export const DRAFT_COLOURS = {
   midpoint: '#7d776d',
   paddockFill: '#c98a2b',
 } as const;
+
+/** A shape being drawn shows a ring at every point, which no saved line has. */
+export const DRAFT_SHOWS_POINTS = true;

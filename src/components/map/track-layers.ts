@@ -8,12 +8,12 @@ export const TRACKS_SOURCE_ID = 'plan-tracks';
 export const PADDOCKS_SOURCE_ID = 'plan-paddocks';
 
 /**
- * Tracks and paddocks: tracks a thin dotted violet (apart from the earth-toned fences, the blue
- * channels and the green realignment), paddocks a faint saltbush wash with a fine edge and their
- * name and area inside.
+ * Tracks and paddocks: tracks a dotted raspberry (chosen to stay apart from every other line on
+ * the map under colour-blind simulation; tests/lib/map/palette.test.ts), paddocks a faint
+ * saltbush wash with a fine edge and their name and area inside.
  */
 export const TRACK_PADDOCK_COLOURS = {
-  track: '#6a4c93',
+  track: '#a8005f',
   paddockFill: '#6f8466',
   paddockEdge: '#4b5d45',
 } as const;
@@ -29,7 +29,7 @@ export const paddockEdgeLayer: Layer<'line'> = {
   id: 'plan-paddock-edge',
   type: 'line',
   source: PADDOCKS_SOURCE_ID,
-  paint: { 'line-color': TRACK_PADDOCK_COLOURS.paddockEdge, 'line-width': byZoom(10, 1, 16, 2) },
+  paint: { 'line-color': TRACK_PADDOCK_COLOURS.paddockEdge, 'line-width': byZoom(10, 1, 16, 1.4) },
 };
 
 export const paddockLabelLayer: Layer<'symbol'> = {

@@ -1,3 +1,5 @@
+import { DRAFT_COLOURS, DRAFT_SHOWS_POINTS } from '../../../src/components/map/draft-style';
+import { TRACK_PADDOCK_COLOURS, paddockEdgeLayer, paddockFillLayer, trackCasingLayer, trackLineLayer } from '../../../src/components/map/track-layers';
 import { simulate, type Deficiency } from '@bjornlu/colorblind';
 import { converter, differenceCiede2000, formatHex, interpolate, wcagContrast } from 'culori';
 import { describe, expect, it } from 'vitest';
@@ -163,6 +165,9 @@ const GROUPS: Group[] = [
       })),
       { name: 'realignment', colour: paintOf(realignLineLayer)['line-color'] as string, against: { colours: casingOf(realignCasingLayer), why: 'the preview runs on its own wider casing', holds: casingWider(realignCasingLayer, realignLineLayer) } },
       { name: 'drainage', colour: TERRAIN_COLOURS.drainage, against: { colours: casingOf(drainageCasingLayer), why: 'drainage lines run on a wider pale casing', holds: casingWider(drainageCasingLayer, drainageLineLayer) } },
+      { name: 'GPS track', colour: TRACK_PADDOCK_COLOURS.track, against: { colours: casingOf(trackCasingLayer), why: 'tracks run on a wider pale casing', holds: casingWider(trackCasingLayer, trackLineLayer) } },
+      { name: 'paddock edge', colour: TRACK_PADDOCK_COLOURS.paddockEdge, against: onGround },
+      { name: 'shape being drawn', colour: DRAFT_COLOURS.line, against: onGround },
       {
         name: 'contour',
         colour: TERRAIN_COLOURS.contour,
@@ -171,6 +176,22 @@ const GROUPS: Group[] = [
     ],
     apartByShape: [
       { pair: ['building', 'built'], how: 'dash-dot against solid', holds: fenceDash('building') !== fenceDash('built') },
+      {
+        pair: ['building', 'paddock edge'],
+        how: 'a paddock edge is a fine line with no casing, fences wide lines on a casing',
+        holds: Math.max(...numbersOf(paintOf(paddockEdgeLayer)['line-width'])) < minFenceWidthPx,
+      },
+      {
+        pair: ['paddock edge', 'contour'],
+        how: 'a paddock edge is opaque and borders a tinted fill holding its name and area; contours are translucent hairlines',
+        holds: (paintOf(paddockFillLayer)['fill-opacity'] as number) > 0 && (paintOf(paddockEdgeLayer)['line-opacity'] ?? 1) === 1 && (paintOf(contour)['line-opacity'] as number) < 1,
+      },
+      {
+        pair: ['GPS track', 'paddock edge'],
+        how: 'a track is a row of dots on a casing, a paddock edge a fine solid line',
+        holds: Array.isArray(paintOf(trackLineLayer)['line-dasharray']) && paintOf(paddockEdgeLayer)['line-dasharray'] === undefined,
+      },
+      { pair: ['built', 'shape being drawn'], how: 'a shape being drawn shows a ring at every point, and only while it is drawn', holds: DRAFT_SHOWS_POINTS },
       {
         pair: ['approved', 'contour'],
         how: 'fences are wide lines on a casing, contours translucent hairlines',

@@ -10,7 +10,7 @@ import {
 } from 'terra-draw';
 import { TerraDrawMapLibreGLAdapter } from 'terra-draw-maplibre-gl-adapter';
 import type { Map as MaplibreMap } from 'maplibre-gl';
-import { DRAFT_COLOURS } from '../../map/draft-style';
+import { DRAFT_COLOURS, DRAFT_SHOWS_POINTS } from '../../map/draft-style';
 
 /** Terra Draw's mode names in Gullyline: a fence line, a paddock, and reshaping either. */
 export const DRAW_MODES = { fence: 'fence', paddock: 'paddock', reshape: 'reshape', idle: 'static' } as const;
@@ -48,13 +48,13 @@ export function createPlanDraw(map: MaplibreMap, snap: SnapToCustom): TerraDraw 
       new TerraDrawLineStringMode({
         modeName: DRAW_MODES.fence,
         snapping,
-        showCoordinatePoints: true,
+        showCoordinatePoints: DRAFT_SHOWS_POINTS,
         styles: { lineStringColor: hex(DRAFT_COLOURS.line), lineStringWidth: 4, ...vertexStyles },
       }),
       new TerraDrawPolygonMode({
         modeName: DRAW_MODES.paddock,
         snapping,
-        showCoordinatePoints: true,
+        showCoordinatePoints: DRAFT_SHOWS_POINTS,
         styles: {
           fillColor: hex(DRAFT_COLOURS.paddockFill),
           fillOpacity: 0.25,
