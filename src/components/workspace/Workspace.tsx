@@ -20,6 +20,7 @@ import PlanDrawing from './editing/PlanDrawing';
 import { ShortcutsHelp, useWorkspaceShortcuts } from './editing/shortcuts';
 import { TracksPanel } from './editing/TracksPanel';
 import { usePlanEditor } from './editing/use-plan-editor';
+import { ExportPanel } from './ExportPanel';
 import { FenceLinesSummary } from './FenceLinesSummary';
 import LayerToggles, { type PlanVisibility } from './LayerToggles';
 import { WorkspaceSheet, type SheetSection } from './WorkspaceSheet';
@@ -257,7 +258,7 @@ function Workspace({ propertyId, propertyName, extentWgs84, canEdit, children }:
       <WorkspaceSheet
         section={section}
         onSection={setSection}
-        counts={{ crossings: crossingList.filter((c) => c.kind !== 'runs-along').length }}
+        counts={{ crossings: crossingList.length }}
         top={
           <>
             <p className="sr-only" role="status">{announcement}</p>
@@ -341,16 +342,19 @@ function Workspace({ propertyId, propertyName, extentWgs84, canEdit, children }:
           ),
           terrain: <TerrainPanel propertyId={propertyId} canEdit={canEdit} models={models.data ?? []} loading={models.isPending} />,
           files: (
-            <TracksPanel
-              propertyId={propertyId}
-              tracks={tracks.data ?? []}
-              loading={tracks.isPending}
-              canEdit={canEdit}
-              onFenceMade={(fenceLine) => {
-                setSelectedFenceId(fenceLine.id);
-                setSection('plan');
-              }}
-            />
+            <>
+              <ExportPanel propertyId={propertyId} canEdit={canEdit} />
+              <TracksPanel
+                propertyId={propertyId}
+                tracks={tracks.data ?? []}
+                loading={tracks.isPending}
+                canEdit={canEdit}
+                onFenceMade={(fenceLine) => {
+                  setSelectedFenceId(fenceLine.id);
+                  setSection('plan');
+                }}
+              />
+            </>
           ),
         }}
         footer={children}

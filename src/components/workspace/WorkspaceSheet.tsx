@@ -38,14 +38,14 @@ export function WorkspaceSheet({ section, onSection, top, sections, counts = {},
     >
       <button
         type="button"
-        className="flex min-h-11 w-full items-center justify-center gap-2 text-sm font-semibold text-bark-700 md:hidden"
+        className="flex min-h-11 w-full flex-col items-center justify-center gap-1 pt-1.5 text-xs font-semibold text-bark-700 md:hidden"
         aria-expanded={expanded}
         aria-controls={`${id}-body`}
         onClick={() => setExpanded((open) => !open)}
         data-testid="sheet-handle"
       >
         <span aria-hidden="true" className="h-1.5 w-10 rounded-full bg-sand-300" />
-        {expanded ? 'Show more map' : 'Show more panel'}
+        {expanded ? 'Lower the panels' : 'Raise the panels'}
       </button>
       <div className="flex gap-1 border-b border-sand-200 px-2 md:px-4 md:pt-3" role="tablist" aria-label="Panels">
         {SHEET_SECTIONS.map(({ key, label }) => (

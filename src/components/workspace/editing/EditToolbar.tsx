@@ -22,13 +22,13 @@ export function EditToolbar({ editor }: Props) {
 
   return (
     <div
-      className="absolute right-12 top-2 z-10 flex max-w-[min(24rem,calc(100%-4rem))] flex-col items-end gap-2 rounded-lg bg-white/95 p-2 shadow-md"
+      className="absolute left-2 top-16 z-10 flex max-w-[calc(100%-4rem)] flex-col gap-2 rounded-lg bg-white/95 p-2 shadow-md md:left-auto md:right-12 md:top-2 md:max-w-[24rem] md:items-end"
       role="toolbar"
       aria-label="Edit the plan"
       data-testid="edit-toolbar"
     >
       {!task ? (
-        <div className="flex flex-col gap-2 sm:flex-row">
+        <div className="flex flex-row gap-2">
           <button type="button" className="btn-primary min-h-11" onClick={() => editor.startDrawing('fence')} data-testid="draw-fence" aria-keyshortcuts="F">
             Draw fence
           </button>
