@@ -6,7 +6,9 @@ import type {
   FenceLinesResponse,
   RealignmentView,
 } from '../schemas/crossing-view';
+import type { Paddock, PaddocksFromFencesResult } from '../schemas/paddock';
 import type { FenceLine } from '../schemas/plan';
+import type { ElevationAtPoint } from '../schemas/queries';
 import type { Member, PropertySummary } from '../schemas/property';
 import type { ElevationModelView, TerrainRun } from '../schemas/terrain';
 
@@ -70,6 +72,22 @@ export const api = {
   /** Accepts the previewed realignment; `version` is the fence line's version from the preview. */
   acceptRealignment: (propertyId: number, crossingId: number, version: number) =>
     request<{ fenceLine: FenceLine }>('POST', `/api/properties/${propertyId}/crossings/${crossingId}/realignment`, { version }),
+  listPaddocks: (propertyId: number) => request<{ paddocks: Paddock[] }>('GET', `/api/properties/${propertyId}/paddocks`),
+  /** `rings`: the outer ring then any holes, `[[lon, lat], …]`, closed or not. */
+  createPaddock: (propertyId: number, input: { name: string; rings: [number, number][][] }) =>
+    request<{ paddock: Paddock }>('POST', `/api/properties/${propertyId}/paddocks`, input),
+  /** `version` is the paddock's version as read; a stale one is refused with 409. */
+  updatePaddock: (propertyId: number, paddockId: number, changes: { name?: string; rings?: [number, number][][]; version: number }) =>
+    request<{ paddock: Paddock }>('PATCH', `/api/properties/${propertyId}/paddocks/${paddockId}`, changes),
+  deletePaddock: (propertyId: number, paddockId: number) =>
+    request<void>('DELETE', `/api/properties/${propertyId}/paddocks/${paddockId}`),
+  /** Makes paddocks of the areas the fence lines close off (by default every fence line not retired). */
+  paddocksFromFences: (propertyId: number, fenceLineIds?: number[]) =>
+    request<PaddocksFromFencesResult>('POST', `/api/properties/${propertyId}/paddocks/from-fences`, fenceLineIds ? { fenceLineIds } : {}),
+  deleteTrack: (propertyId: number, trackId: number) => request<void>('DELETE', `/api/properties/${propertyId}/tracks/${trackId}`),
+  /** Ground height at a point (throttle it when following the cursor); `elevationM` null off every model. */
+  elevationAt: (propertyId: number, [lon, lat]: [number, number]) =>
+    request<ElevationAtPoint>('GET', `/api/properties/${propertyId}/elevation?${new URLSearchParams({ lon: String(lon), lat: String(lat) })}`),
 };
 
 export type UploadedElevationModel = { elevationModel: ElevationModelView; run: TerrainRun; warnings: string[] };
