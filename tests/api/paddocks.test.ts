@@ -149,7 +149,7 @@ describe('tracks', () => {
     const track = body.tracks.find((t) => t.name === 'Old fence')!;
     const before = await rowCounts('tracks');
     expect((await manager.request('DELETE', `${base()}/tracks/${track.id}`)).status).toBe(204);
-    expect(await rowCounts('tracks')).toEqual({ tracks: before.tracks - 1 });
+    expect(await rowCounts('tracks')).toEqual({ tracks: before.tracks! - 1 });
     expect((await manager.request('DELETE', `${base()}/tracks/${track.id}`)).status).toBe(404);
     const entry = await serverDb()('audit_log').where({ property_id: propertyId, action: 'track.delete' }).first('entity_id');
     expect(entry.entity_id).toBe(String(track.id));
