@@ -8,7 +8,7 @@ import { TestClient, closeServerDb, newAccount, serverDb, signedInClient } from 
 
 const CALLERS = ['anonymous', 'outsider', 'viewer', 'crew', 'manager', 'owner'] as const;
 type Caller = (typeof CALLERS)[number];
-type Context = { propertyId: number; targetUserId: number; elevationModelId: number; runId: number; modelId?: number; fenceId?: number; trackId?: number; crossingId?: number };
+type Context = { propertyId: number; targetUserId: number; elevationModelId: number; runId: number; modelId?: number; fenceId?: number; trackId?: number; crossingId?: number; paddockId?: number };
 type Entry = {
   expect: Record<Caller, number>;
   body?: (context: Context) => Promise<unknown> | unknown;
@@ -67,6 +67,21 @@ async function spareTrack(context: Context): Promise<Partial<Context>> {
     })
     .returning('id');
   return { trackId: row.id };
+}
+
+const PADDOCK = { name: 'Matrix paddock', rings: [[[141.64, -31.44], [141.65, -31.44], [141.65, -31.43]]] };
+
+/** A paddock of its own for a read, a change or a delete to act on. */
+async function sparePaddock(context: Context): Promise<Partial<Context>> {
+  const now = new Date().toISOString();
+  const ring = [...PADDOCK.rings[0]!, PADDOCK.rings[0]![0]!];
+  const [row] = await serverDb()('paddocks')
+    .insert({
+      property_id: context.propertyId, name: 'Spare paddock', geometry: JSON.stringify({ type: 'Polygon', coordinates: [ring] }), area_ha: 48,
+      min_lon: 141.64, min_lat: -31.44, max_lon: 141.65, max_lat: -31.43, version: 1, created_at: now, updated_at: now,
+    })
+    .returning('id');
+  return { paddockId: row.id };
 }
 
 const MANIFEST = JSON.parse(readFileSync('data-samples/saltbush-rise.json', 'utf8')) as { fenceLines: { name: string; pointsLonLat: [number, number][] }[] };
@@ -154,7 +169,14 @@ const MATRIX: Record<string, Entry> = {
   'PATCH /api/properties/[id]/fence-lines/[fenceId]': { expect: atLeast('manager', 200), prepare: spareFence, body: () => ({ name: 'Renamed', version: 1 }) },
   'DELETE /api/properties/[id]/fence-lines/[fenceId]': { expect: atLeast('manager', 204), prepare: spareFence },
   'GET /api/properties/[id]/paddocks': { expect: atLeast('viewer', 200) },
+  'POST /api/properties/[id]/paddocks': { expect: atLeast('manager', 201), body: () => PADDOCK },
+  'POST /api/properties/[id]/paddocks/from-fences': { expect: atLeast('manager', 201) },
+  'GET /api/properties/[id]/paddocks/[paddockId]': { expect: atLeast('viewer', 200), prepare: sparePaddock },
+  'PATCH /api/properties/[id]/paddocks/[paddockId]': { expect: atLeast('manager', 200), prepare: sparePaddock, body: () => ({ name: 'Renamed', version: 1 }) },
+  'DELETE /api/properties/[id]/paddocks/[paddockId]': { expect: atLeast('manager', 204), prepare: sparePaddock },
+  'GET /api/properties/[id]/elevation': { expect: atLeast('viewer', 200), query: '?lon=141.6455&lat=-31.4395' },
   'GET /api/properties/[id]/tracks': { expect: atLeast('viewer', 200) },
+  'DELETE /api/properties/[id]/tracks/[trackId]': { expect: atLeast('manager', 204), prepare: spareTrack },
   'POST /api/properties/[id]/tracks': { expect: atLeast('manager', 201), file: { bytes: KML_FILE, type: 'application/vnd.google-earth.kml+xml', query: '?name=old.kml' } },
   'POST /api/properties/[id]/tracks/[trackId]/fence-line': { expect: atLeast('manager', 201), prepare: spareTrack },
   'POST /api/properties/[id]/elevation-models': {
@@ -204,7 +226,8 @@ function fill(route: string, context: Context): string {
     .replace('[modelId]', String(context.modelId ?? context.elevationModelId))
     .replace('[fenceId]', String(context.fenceId ?? 0))
     .replace('[trackId]', String(context.trackId ?? 0))
-    .replace('[crossingId]', String(context.crossingId ?? 0));
+    .replace('[crossingId]', String(context.crossingId ?? 0))
+    .replace('[paddockId]', String(context.paddockId ?? 0));
 }
 
 const clients = {} as Record<Caller, TestClient>;

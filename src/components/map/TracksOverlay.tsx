@@ -1,7 +1,8 @@
 import type { FeatureCollection, LineString, Polygon } from 'geojson';
 import { useMemo } from 'react';
 import { Layer, Source } from 'react-map-gl/maplibre';
-import type { Paddock, Track } from '../../lib/schemas/tracks';
+import type { Paddock } from '../../lib/schemas/paddock';
+import type { Track } from '../../lib/schemas/tracks';
 import {
   PADDOCKS_SOURCE_ID,
   TRACKS_SOURCE_ID,

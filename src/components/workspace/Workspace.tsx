@@ -96,7 +96,7 @@ function Workspace({ propertyId, propertyName, extentWgs84, canEdit, children }:
   const [notice, setNotice] = useState<string | null>(null);
   const selected = crossingList.find((crossing) => crossing.id === selectedId) ?? null;
   const groundHeightAt = useCallback(
-    (lon: number, lat: number) => api.elevationAt(propertyId, lon, lat).then((answer) => answer.elevationM),
+    (lon: number, lat: number) => api.elevationAt(propertyId, [lon, lat]).then((answer) => answer.elevationM),
     [propertyId],
   );
   const editor = usePlanEditor({

@@ -6,8 +6,10 @@ import type {
   FenceLinesResponse,
   RealignmentView,
 } from '../schemas/crossing-view';
+import type { Paddock, PaddocksFromFencesResult } from '../schemas/paddock';
 import type { FenceLine, FenceLineInput } from '../schemas/plan';
-import type { Paddock, Track, TrackImportResult } from '../schemas/tracks';
+import type { ElevationAtPoint } from '../schemas/queries';
+import type { Track, TrackImportResult } from '../schemas/tracks';
 import type { Member, PropertySummary } from '../schemas/property';
 import type { ElevationModelView, TerrainRun } from '../schemas/terrain';
 
@@ -59,9 +61,6 @@ export const api = {
     request<{ run: TerrainRun }>('POST', `/api/properties/${propertyId}/terrain-runs/${runId}/cancel`),
   startTerrainRun: (propertyId: number, elevationModelId: number, thresholdHa?: number) =>
     request<{ run: TerrainRun }>('POST', `/api/properties/${propertyId}/terrain-runs`, { elevationModelId, thresholdHa }),
-  /** Ground height at a point from the finest processed elevation model covering it (null outside every model). */
-  elevationAt: (propertyId: number, lon: number, lat: number) =>
-    request<{ elevationM: number | null }>('GET', `/api/properties/${propertyId}/elevation?lon=${lon}&lat=${lat}`),
   drainageLines: (propertyId: number) => request<FeatureCollection>('GET', `/api/properties/${propertyId}/drainage-lines`),
   listFenceLines: (propertyId: number) => request<FenceLinesResponse>('GET', `/api/properties/${propertyId}/fence-lines`),
   createFenceLine: (propertyId: number, input: Partial<FenceLineInput> & Pick<FenceLineInput, 'name' | 'coordinates'>) =>
@@ -77,18 +76,9 @@ export const api = {
   /** Sends a GPX or KML file: its lines become tracks, its polygons paddocks. */
   importTrackFile: (propertyId: number, file: File) =>
     request<{ imported: TrackImportResult }>('POST', `/api/properties/${propertyId}/tracks?name=${encodeURIComponent(file.name)}`, file),
-  deleteTrack: (propertyId: number, trackId: number) => request<void>('DELETE', `/api/properties/${propertyId}/tracks/${trackId}`),
   trackToFenceLine: (propertyId: number, trackId: number) =>
     request<{ fenceLine: FenceLine }>('POST', `/api/properties/${propertyId}/tracks/${trackId}/fence-line`),
-  listPaddocks: (propertyId: number) => request<{ paddocks: Paddock[] }>('GET', `/api/properties/${propertyId}/paddocks`),
   getPaddock: (propertyId: number, paddockId: number) => request<{ paddock: Paddock }>('GET', `/api/properties/${propertyId}/paddocks/${paddockId}`),
-  createPaddock: (propertyId: number, input: { name: string; rings: [number, number][][] }) =>
-    request<{ paddock: Paddock }>('POST', `/api/properties/${propertyId}/paddocks`, input),
-  updatePaddock: (propertyId: number, paddockId: number, changes: { name?: string; rings?: [number, number][][]; version: number }) =>
-    request<{ paddock: Paddock }>('PATCH', `/api/properties/${propertyId}/paddocks/${paddockId}`, changes),
-  deletePaddock: (propertyId: number, paddockId: number) => request<void>('DELETE', `/api/properties/${propertyId}/paddocks/${paddockId}`),
-  /** Makes paddocks of the areas the fence lines close off (those not already a paddock). */
-  paddocksFromFences: (propertyId: number) => request<{ paddocks: Paddock[] }>('POST', `/api/properties/${propertyId}/paddocks/from-fences`, {}),
   /** The property's crossings as a GeoJSON FeatureCollection of Points. */
   listCrossings: (propertyId: number) => request<CrossingCollection>('GET', `/api/properties/${propertyId}/crossings`),
   getCrossing: (propertyId: number, crossingId: number) =>
@@ -101,6 +91,22 @@ export const api = {
   /** Accepts the previewed realignment; `version` is the fence line's version from the preview. */
   acceptRealignment: (propertyId: number, crossingId: number, version: number) =>
     request<{ fenceLine: FenceLine }>('POST', `/api/properties/${propertyId}/crossings/${crossingId}/realignment`, { version }),
+  listPaddocks: (propertyId: number) => request<{ paddocks: Paddock[] }>('GET', `/api/properties/${propertyId}/paddocks`),
+  /** `rings`: the outer ring then any holes, `[[lon, lat], …]`, closed or not. */
+  createPaddock: (propertyId: number, input: { name: string; rings: [number, number][][] }) =>
+    request<{ paddock: Paddock }>('POST', `/api/properties/${propertyId}/paddocks`, input),
+  /** `version` is the paddock's version as read; a stale one is refused with 409. */
+  updatePaddock: (propertyId: number, paddockId: number, changes: { name?: string; rings?: [number, number][][]; version: number }) =>
+    request<{ paddock: Paddock }>('PATCH', `/api/properties/${propertyId}/paddocks/${paddockId}`, changes),
+  deletePaddock: (propertyId: number, paddockId: number) =>
+    request<void>('DELETE', `/api/properties/${propertyId}/paddocks/${paddockId}`),
+  /** Makes paddocks of the areas the fence lines close off (by default every fence line not retired). */
+  paddocksFromFences: (propertyId: number, fenceLineIds?: number[]) =>
+    request<PaddocksFromFencesResult>('POST', `/api/properties/${propertyId}/paddocks/from-fences`, fenceLineIds ? { fenceLineIds } : {}),
+  deleteTrack: (propertyId: number, trackId: number) => request<void>('DELETE', `/api/properties/${propertyId}/tracks/${trackId}`),
+  /** Ground height at a point (throttle it when following the cursor); `elevationM` null off every model. */
+  elevationAt: (propertyId: number, [lon, lat]: [number, number]) =>
+    request<ElevationAtPoint>('GET', `/api/properties/${propertyId}/elevation?${new URLSearchParams({ lon: String(lon), lat: String(lat) })}`),
 };
 
 export type UploadedElevationModel = { elevationModel: ElevationModelView; run: TerrainRun; warnings: string[] };

@@ -29,8 +29,9 @@ export function polygonAreaHa(rings: readonly (readonly (readonly [number, numbe
     const polygon = WGS84.Polygon(false);
     const open = ring.length > 1 && ring[0]![0] === ring.at(-1)![0] && ring[0]![1] === ring.at(-1)![1] ? ring.slice(0, -1) : ring;
     for (const [lon, lat] of open) polygon.AddPoint(lat, lon);
-    // reverse = false, sign = false: the unsigned area whichever way the ring runs.
-    return Math.abs(polygon.Compute(false, false).area ?? 0);
+    // sign = true: a clockwise ring gives minus its area (with false it would give the area of
+    // the rest of the earth), so the absolute value is the ring's area whichever way it runs.
+    return Math.abs(polygon.Compute(false, true).area ?? 0);
   };
   const [outer, ...holes] = rings;
   if (!outer) return 0;

@@ -13,3 +13,18 @@ export const profileRequestSchema = z.object({
   line: z.array(z.tuple([lon, lat]), { required_error: 'Give the line as [[lon, lat], …].' }).min(2, 'A line needs at least two points.').max(10_000, 'Keep the line under 10 000 points.'),
   spacingM: z.number().positive('spacingM must be more than 0 m.').max(1000).optional(),
 });
+
+/** A query parameter in degrees: missing, empty or not a number is refused (not read as 0). */
+const degrees = (name: 'lon' | 'lat', limit: number) =>
+  z.preprocess(
+    (value) => (value === undefined || value === '' ? undefined : Number(value)),
+    z
+      .number({ required_error: `Give ${name}=… in degrees.`, invalid_type_error: `Give ${name} as a number of degrees.` })
+      .min(-limit, `${name} must be between -${limit} and ${limit}.`)
+      .max(limit, `${name} must be between -${limit} and ${limit}.`),
+  );
+
+export const elevationQuerySchema = z.object({ lon: degrees('lon', 180), lat: degrees('lat', 90) });
+
+/** Ground height at a point and the elevation model it came from (all null off every model). */
+export type ElevationAtPoint = { elevationM: number | null; modelId: number | null; cellSizeM: number | null };

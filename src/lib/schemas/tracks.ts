@@ -9,8 +9,5 @@ export type Track = {
   lengthM: number;
 };
 
-/** A paddock: one outer ring and any holes, [lon, lat] in WGS84, with its area. */
-export type Paddock = { id: number; name: string; rings: [number, number][][]; areaHa: number; version?: number };
-
 /** What an import of a GPX or KML file stored. */
 export type TrackImportResult = { format: 'gpx' | 'kml'; tracks: number; paddocks: number; skipped: string[] };

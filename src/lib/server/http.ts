@@ -101,6 +101,12 @@ export async function readJson<T>(request: Request, schema: ZodType<T, ZodTypeDe
   return parseWith(schema, value);
 }
 
+/** {@link readJson} for a body that may be left out: no body is checked as `{}`. */
+export async function readOptionalJson<T>(request: Request, schema: ZodType<T, ZodTypeDef, unknown>): Promise<T> {
+  if (request.body === null || request.headers.get('content-length') === '0') return parseWith(schema, {});
+  return readJson(request, schema);
+}
+
 /** Checks a value against a schema, turning zod issues into per-field messages. */
 export function parseWith<T>(schema: ZodType<T, ZodTypeDef, unknown>, value: unknown): T {
   const parsed = schema.safeParse(value);

@@ -20,6 +20,25 @@ describe('migrations', () => {
     expect(applied[0]).toMatch(/^\d{14}_users\.ts$/);
   });
 
+  it('gives paddocks a version and a change time, the rows already there taking their creation time', async () => {
+    await ensureMigrated();
+    const source = { migrationSource: bundledMigrations() };
+    const migrations = await source.migrationSource.getMigrations([]);
+    const before = migrations.indexOf('20261203000100_paddock_versions.ts');
+    expect(before).toBeGreaterThan(0);
+    // Back to the schema before it, with one paddock imported then.
+    while ((await db().migrate.currentVersion(source)) !== migrations[before - 1]!.slice(0, 14)) await db().migrate.down(source);
+    expect(await db().schema.hasColumn('paddocks', 'version')).toBe(false);
+    const now = '2026-12-01T10:00:00.000Z';
+    const [user] = await db()('users').insert({ email: 'paddock-mig@test.example', name: 'M', password_hash: 'x', created_at: now, updated_at: now }).returning('id');
+    const [property] = await db()('properties').insert({ name: 'Old paddocks', crs: 'EPSG:7854', created_at: now, updated_at: now }).returning('id');
+    await db()('paddocks').insert({ property_id: property.id, name: 'Old', geometry: '{}', area_ha: 1, min_lon: 0, min_lat: 0, max_lon: 0, max_lat: 0, created_at: now });
+    await db().migrate.latest(source);
+    expect(await db()('paddocks').where({ property_id: property.id }).first('version', 'updated_at')).toEqual({ version: 1, updated_at: now });
+    await db()('properties').where({ id: property.id }).delete();
+    await db()('users').where({ id: user.id }).delete();
+  });
+
   it('turns on WAL and foreign keys for the connection', async () => {
     await ensureMigrated();
     const [journal] = await db().raw('PRAGMA journal_mode');

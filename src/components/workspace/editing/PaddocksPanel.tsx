@@ -1,7 +1,7 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { useState } from 'react';
 import { api } from '../../../lib/client/api';
-import type { Paddock } from '../../../lib/schemas/tracks';
+import type { Paddock } from '../../../lib/schemas/paddock';
 import { formatArea } from './format-measure';
 
 type Props = {

@@ -3,7 +3,7 @@ import { useCallback, useMemo, useRef, useState } from 'react';
 import { ApiError, api } from '../../../lib/client/api';
 import { lineLengthM, polygonAreaHa } from '../../../lib/geo/measure';
 import type { FenceLine } from '../../../lib/schemas/plan';
-import type { Paddock } from '../../../lib/schemas/tracks';
+import type { Paddock } from '../../../lib/schemas/paddock';
 import type { FenceLineDetails } from './FenceLineForm';
 import type { DraftShape, DrawControls, DrawTool } from './PlanDrawing';
 
@@ -32,7 +32,7 @@ export function measureShape(shape: DraftShape | null): { lengthM?: number; area
 /** The version now saved of what a reshape changes, so a person can choose to save over it. */
 async function latestVersionOf(propertyId: number, task: EditTask | null): Promise<number | null> {
   if (task?.kind === 'reshape-fence') return (await api.getFenceLine(propertyId, task.fence.id)).fenceLine.version;
-  if (task?.kind === 'reshape-paddock') return (await api.getPaddock(propertyId, task.paddock.id)).paddock.version ?? null;
+  if (task?.kind === 'reshape-paddock') return (await api.getPaddock(propertyId, task.paddock.id)).paddock.version;
   return null;
 }
 
@@ -157,7 +157,7 @@ export function usePlanEditor({ propertyId, onSaved }: Options) {
       }
       if (task.kind === 'reshape-paddock' && shape.kind === 'paddock') {
         void run(async () => {
-          const { paddock } = await api.updatePaddock(propertyId, task.paddock.id, { rings: [shape.ring], version: overVersion ?? task.paddock.version ?? 1 });
+          const { paddock } = await api.updatePaddock(propertyId, task.paddock.id, { rings: [shape.ring], version: overVersion ?? task.paddock.version });
           return { paddock, message: `${paddock.name} has its new boundary: ${paddock.areaHa.toFixed(1)} ha.` };
         });
       }

@@ -1,15 +1,16 @@
 import type { Knex } from 'knex';
-import { boundsOf, lineLengthM, orientRing, polygonAreaHa } from '../../geo/measure';
+import { boundsOf, lineLengthM } from '../../geo/measure';
 import type { ImportedFile } from '../../geo/import-lines';
 import { db } from '../db';
 import { NotFoundError } from '../http';
 import { recordAudit } from './audit-log';
+import { paddockGeometryColumns } from './paddocks';
 
-export type Track = { id: number; name: string; kind: 'track' | 'route' | 'line'; sourceFile: string; description: string; coordinates: [number, number][]; lengthM: number };
-export type Paddock = { id: number; name: string; rings: [number, number][][]; areaHa: number };
+import type { Track } from '../../schemas/tracks';
+
+export type { Track };
 
 type TrackRow = { id: number; property_id: number; name: string; kind: Track['kind']; source_file: string; description: string; geometry: string; length_m: number };
-type PaddockRow = { id: number; property_id: number; name: string; geometry: string; area_ha: number };
 
 const rowToTrack = (row: TrackRow): Track => ({
   id: row.id,
@@ -19,13 +20,6 @@ const rowToTrack = (row: TrackRow): Track => ({
   description: row.description,
   coordinates: (JSON.parse(row.geometry) as { coordinates: [number, number][] }).coordinates,
   lengthM: row.length_m,
-});
-
-const rowToPaddock = (row: PaddockRow): Paddock => ({
-  id: row.id,
-  name: row.name,
-  rings: (JSON.parse(row.geometry) as { coordinates: [number, number][][] }).coordinates,
-  areaHa: row.area_ha,
 });
 
 const bboxColumns = (positions: [number, number][]) => {
@@ -56,15 +50,14 @@ export async function storeImportedFile(propertyId: number, sourceFile: string, 
     }
     const paddockIds: number[] = [];
     for (const polygon of imported.polygons) {
-      const rings = polygon.rings.map((ring, i) => orientRing(ring, i === 0));
       const [row] = await t('paddocks')
         .insert({
           property_id: propertyId,
           name: polygon.name.slice(0, 120),
-          geometry: JSON.stringify({ type: 'Polygon', coordinates: rings }),
-          area_ha: polygonAreaHa(rings),
-          ...bboxColumns(rings[0]!),
+          ...paddockGeometryColumns(polygon.rings),
+          version: 1,
           created_at: now,
+          updated_at: now,
         })
         .returning('id');
       paddockIds.push((row as { id: number }).id);
@@ -85,6 +78,10 @@ export async function getTrack(propertyId: number, id: number, trx: Knex = db())
   return rowToTrack(row);
 }
 
-export async function listPaddocks(propertyId: number, trx: Knex = db()): Promise<Paddock[]> {
-  return (await trx<PaddockRow>('paddocks').where({ property_id: propertyId }).orderBy('id')).map(rowToPaddock);
+export async function deleteTrack(propertyId: number, id: number, userId: number): Promise<void> {
+  await db().transaction(async (trx) => {
+    const track = await getTrack(propertyId, id, trx);
+    await trx('tracks').where({ id, property_id: propertyId }).delete();
+    await recordAudit({ propertyId, userId, action: 'track.delete', entityType: 'track', entityId: id, detail: { name: track.name, sourceFile: track.sourceFile } }, trx);
+  });
 }

@@ -1,6 +1,7 @@
+import type { ElevationAtPoint } from '../../schemas/queries';
 import { createFromWgs84, createToWgs84, roundLonLat } from '../../geo/reproject';
 import { delineateCatchment } from '../../terrain/catchment';
-import { sampleProfile } from '../../terrain/profile';
+import { bilinearElevationM, sampleProfile } from '../../terrain/profile';
 import { db } from '../db';
 import { NotFoundError } from '../http';
 import { loadRunRasters, loadSourceModel } from './run-rasters';
@@ -12,7 +13,14 @@ type Covering = { modelId: number; runId: number; crs: string; storedFile: strin
  * extent holds the point, the finest (smallest cells) wins.
  * @throws NotFoundError when no model covers the point
  */
-export async function modelCovering(propertyId: number, [lon, lat]: [number, number]): Promise<Covering> {
+export async function modelCovering(propertyId: number, lonLat: [number, number]): Promise<Covering> {
+  const [finest] = await modelsCovering(propertyId, lonLat);
+  if (!finest) throw new NotFoundError('elevation model', 'No processed elevation model covers this place. Upload one that does, and let its terrain run finish.');
+  return finest;
+}
+
+/** The property's models with a finished run whose extent holds the point, finest first (one indexed query). */
+async function modelsCovering(propertyId: number, [lon, lat]: [number, number]): Promise<Covering[]> {
   const rows = await db()('elevation_models as m')
     .join('terrain_runs as r', 'r.elevation_model_id', 'm.id')
     .where({ 'm.property_id': propertyId, 'r.status': 'succeeded' })
@@ -22,9 +30,32 @@ export async function modelCovering(propertyId: number, [lon, lat]: [number, num
     .andWhere('m.extent_north', '>=', lat)
     .orderBy([{ column: 'm.cell_size_m', order: 'asc' }, { column: 'r.id', order: 'desc' }])
     .select('m.id as modelId', 'r.id as runId', 'm.crs as crs', 'm.stored_file as storedFile', 'm.cell_size_m as cellSizeM');
-  const [finest] = rows as Covering[];
-  if (!finest) throw new NotFoundError('elevation model', 'No processed elevation model covers this place. Upload one that does, and let its terrain run finish.');
-  return finest;
+  // One model may have several finished runs; its heights are the same in each.
+  return (rows as Covering[]).filter((row, i, all) => all.findIndex((other) => other.modelId === row.modelId) === i);
+}
+
+/** Converters from WGS84 into each model CRS met, kept: proj4 parses its definition once. */
+const fromWgs84ByCrs = new Map<string, (lonLat: readonly [number, number]) => [number, number]>();
+
+/**
+ * Ground height at a point, by bilinear interpolation between cell centres (`bilinearElevationM`,
+ * as the profiles), from the finest processed model that has a height there: where the finest
+ * model is nodata or the point lies in its WGS84 extent but off its grid, the next finest is
+ * tried. Off every model: all null. Cheap enough to follow the map cursor: one indexed query,
+ * and the model's heights come from the in-memory cache (`loadSourceModel`), read from disk once.
+ */
+export async function elevationAt(propertyId: number, lonLat: [number, number]): Promise<ElevationAtPoint> {
+  const candidates = await modelsCovering(propertyId, lonLat);
+  for (const covering of candidates) {
+    const model = await loadSourceModel(covering.storedFile, covering.crs);
+    let toModel = fromWgs84ByCrs.get(model.crs.proj4);
+    if (!toModel) fromWgs84ByCrs.set(model.crs.proj4, (toModel = createFromWgs84(model.crs.proj4)));
+    const [x, y] = toModel(lonLat);
+    const elevationM = bilinearElevationM(model.grid, model.transform, x, y);
+    if (elevationM !== null) return { elevationM, modelId: covering.modelId, cellSizeM: covering.cellSizeM };
+  }
+  const [finest] = candidates;
+  return { elevationM: null, modelId: finest?.modelId ?? null, cellSizeM: finest?.cellSizeM ?? null };
 }
 
 /** The catchment draining to a point (snapped to the channel within `snapM`), in WGS84, with the figures flood formulas need. */

@@ -1,8 +1,0 @@
-import type { APIRoute } from 'astro';
-import { requireRole } from '../../../../lib/server/auth';
-import { listPaddocks } from '../../../../lib/server/repos/tracks';
-
-export const GET: APIRoute = async ({ locals, params }) => {
-  const { propertyId } = await requireRole(locals, params.id, 'viewer');
-  return Response.json({ paddocks: await listPaddocks(propertyId) });
-};
