@@ -1,4 +1,5 @@
 import { defineMiddleware, sequence } from 'astro:middleware';
+import { compressAnswer } from './lib/server/compress';
 import { getConfig } from './lib/server/config';
 import { ensureReady } from './lib/server/startup';
 import { DomainError, PayloadTooLargeError, UnauthorizedError, errorResponse, internalErrorResponse } from './lib/server/http';
@@ -29,6 +30,9 @@ const answerErrors = defineMiddleware(async (context, next) => {
     return internalErrorResponse(error);
   }
 });
+
+/** Big text answers (drainage lines, plan exports) go gzip-compressed to clients that take it. */
+const compressAnswers = defineMiddleware(async (context, next) => compressAnswer(context.request, await next()));
 
 /** Headers every answer carries: nothing is loaded from or framed by another host. */
 const setSecurityHeaders = defineMiddleware(async (_context, next) => {
@@ -83,4 +87,4 @@ const guardRoutes = defineMiddleware((context, next) => {
   return next();
 });
 
-export const onRequest = sequence(setSecurityHeaders, answerErrors, prepareDatabase, limitBodies, loadUser, throttleSignIn, guardRoutes);
+export const onRequest = sequence(setSecurityHeaders, compressAnswers, answerErrors, prepareDatabase, limitBodies, loadUser, throttleSignIn, guardRoutes);

@@ -1,7 +1,7 @@
 import 'maplibre-gl/dist/maplibre-gl.css';
 import { useEffect, useId, useMemo, useRef, useState, type ReactNode } from 'react';
 import Map, { Layer, NavigationControl, ScaleControl, Source, useMap, type MapRef } from 'react-map-gl/maplibre';
-import type { LngLatBoundsLike, MapGeoJSONFeature, Map as MaplibreMap, MapMouseEvent } from 'maplibre-gl';
+import { LngLat, type LngLatBoundsLike, type MapGeoJSONFeature, type Map as MaplibreMap, type MapMouseEvent } from 'maplibre-gl';
 import { createExtentFeatures, toUsableExtent } from './extent';
 import { graticuleBboxFor, type BboxWgs84 } from './graticule';
 import { PROPERTY_EXTENT_SOURCE_ID, propertyExtentLayers } from './layers';
@@ -46,9 +46,18 @@ function toBounds([west, south, east, north]: BboxWgs84): LngLatBoundsLike {
   return [west, south, east, north];
 }
 
+/** Fits the map to the box, unless it is already fitted: each camera move redraws every layer. */
 function fitExtent(map: MaplibreMap, bbox: BboxWgs84): void {
-  map.fitBounds(toBounds(bbox), { padding: fitPadding(map), maxZoom: MAX_FIT_ZOOM, duration: 0 });
+  const options = { padding: fitPadding(map), maxZoom: MAX_FIT_ZOOM };
+  const camera = map.cameraForBounds(toBounds(bbox), options);
+  const center = map.getCenter();
+  const target = camera?.center ? LngLat.convert(camera.center) : null;
+  if (camera && target && Math.abs((camera.zoom ?? 0) - map.getZoom()) < 0.02 && Math.abs(target.lng - center.lng) < 1e-6 && Math.abs(target.lat - center.lat) < 1e-6) return;
+  map.fitBounds(toBounds(bbox), { ...options, duration: 0 });
 }
+
+/** The padding the first frame is fitted with, as fitPadding will find it once the map is laid out. */
+const initialPadding = () => Math.round(Math.min(48, 0.12 * Math.min(window.innerWidth, window.innerHeight)));
 
 function extentKeyOf(extent: BboxWgs84 | null): string {
   return extent ? extent.join(',') : '';
@@ -85,7 +94,10 @@ export default function PropertyMap({ propertyName, extentWgs84, children, inter
   );
 
   // The first frame already shows the extent (or Australia); the fit with padding follows on load.
-  const [initialViewState] = useState(() => ({ bounds: toBounds(extent ?? AUSTRALIA_MAINLAND_BOUNDS) }));
+  const [initialViewState] = useState(() => ({
+    bounds: toBounds(extent ?? AUSTRALIA_MAINLAND_BOUNDS),
+    fitBoundsOptions: { padding: initialPadding(), maxZoom: MAX_FIT_ZOOM },
+  }));
 
   // Fit on load, and again whenever the extent changes (e.g. an elevation model was just processed).
   // The map is published for browser tests only after the first fit, so waiting on it sees the final view.
@@ -133,6 +145,8 @@ export default function PropertyMap({ propertyName, extentWgs84, children, inter
         onMouseLeave={layerIds && (() => setOverFeature(false))}
         cursor={overFeature ? 'pointer' : undefined}
         maxZoom={18}
+        // Labels appear at once: a fade is a second of extra frames, slow where WebGL is drawn in software.
+        fadeDuration={0}
         renderWorldCopies={false}
         // Everything on this map is Gullyline's own; there is no third-party data to attribute.
         attributionControl={false}

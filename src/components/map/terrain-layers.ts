@@ -72,10 +72,17 @@ const widthByOrder = (base: number): ExpressionSpecification => [
   base + 4,
 ];
 
+/**
+ * Small gullies wait for closer zooms: order 3 and up always, order 2 from zoom 12, all from 13.
+ * A whole station's headwaters at once are a blur, and drawing them is most of a first load.
+ */
+const shownAtThisZoom: ExpressionSpecification = ['>=', ['get', 'streamOrder'], ['step', ['zoom'], 3, 12, 2, 13, 1]];
+
 export const drainageCasingLayer: LineLayer = {
   id: 'drainage-casing',
   type: 'line',
   source: DRAINAGE_SOURCE_ID,
+  filter: shownAtThisZoom,
   layout: { 'line-join': 'round', 'line-cap': 'round' },
   paint: { 'line-color': TERRAIN_COLOURS.drainageCasing, 'line-width': widthByOrder(3), 'line-opacity': 0.8 },
 };
@@ -84,6 +91,7 @@ export const drainageLineLayer: LineLayer = {
   id: 'drainage-lines',
   type: 'line',
   source: DRAINAGE_SOURCE_ID,
+  filter: shownAtThisZoom,
   layout: { 'line-join': 'round', 'line-cap': 'round' },
   paint: { 'line-color': TERRAIN_COLOURS.drainage, 'line-width': widthByOrder(1.2) },
 };

@@ -3,6 +3,7 @@ import type { AngleClass, CrossingSummaryView } from '../../lib/schemas/crossing
 import type { FenceLine } from '../../lib/schemas/plan';
 import { CrossingRow } from './crossing/CrossingRow';
 import { CrossingSymbol } from './crossing/CrossingSymbol';
+import { useFirstRows } from './ShowMore';
 
 // The map key (LayerToggles) draws its crossing symbols with this.
 export { CrossingSymbol };
@@ -61,6 +62,7 @@ export default function CrossingsPanel({ crossings, fenceLines, loading, error, 
     };
     return [...kept].sort(compare[sort]);
   }, [crossings, fenceLines, classes, fenceId, sort]);
+  const rows = useFirstRows(shown.length);
 
   const toggleClass = (key: ClassFilter) =>
     setClasses((current) => {
@@ -144,13 +146,16 @@ export default function CrossingsPanel({ crossings, fenceLines, loading, error, 
           {shown.length === 0 ? (
             <p className="mt-3 text-sm text-bark-700">No crossings match these filters.</p>
           ) : (
-            <ul className="mt-3 flex flex-col gap-2" aria-label="Crossings">
-              {shown.map((crossing) => (
-                <li key={crossing.id}>
-                  <CrossingRow crossing={crossing} selected={crossing.id === selectedId} onSelect={onSelect} />
-                </li>
-              ))}
-            </ul>
+            <>
+              <ul className="mt-3 flex flex-col gap-2" aria-label="Crossings">
+                {shown.slice(0, rows.limit).map((crossing) => (
+                  <li key={crossing.id}>
+                    <CrossingRow crossing={crossing} selected={crossing.id === selectedId} onSelect={onSelect} />
+                  </li>
+                ))}
+              </ul>
+              {rows.more}
+            </>
           )}
         </>
       )}

@@ -1,6 +1,8 @@
+import { useMemo } from 'react';
 import type { CrossingSummaryView } from '../../lib/schemas/crossing-view';
 import type { FenceLine } from '../../lib/schemas/plan';
 import { FENCE_STATUS_STYLES } from '../map/plan-layers';
+import { useFirstRows } from './ShowMore';
 
 const kmFormat = new Intl.NumberFormat('en-AU', { minimumFractionDigits: 1, maximumFractionDigits: 1 });
 
@@ -19,6 +21,13 @@ export function FenceLinesSummary({
   onSelect: (fenceLineId: number) => void;
 }) {
   const totalKm = fenceLines.reduce((sum, fence) => sum + fence.lengthM, 0) / 1000;
+  const rows = useFirstRows(fenceLines.length);
+  // Counted once, not by scanning every crossing for each of a big station's fence lines.
+  const crossingCounts = useMemo(() => {
+    const counts = new Map<number, number>();
+    for (const c of crossings) if (c.kind !== 'runs-along') counts.set(c.fenceLineId, (counts.get(c.fenceLineId) ?? 0) + 1);
+    return counts;
+  }, [crossings]);
   return (
     <section className="card p-4" aria-labelledby="fences-heading">
       <h2 id="fences-heading" className="font-bold">Fence lines</h2>
@@ -34,8 +43,8 @@ export function FenceLinesSummary({
             {fenceLines.length} {fenceLines.length === 1 ? 'fence line' : 'fence lines'}, {kmFormat.format(totalKm)} km in all.
           </p>
           <ul className="mt-2 flex flex-col divide-y divide-sand-200 text-sm">
-            {fenceLines.map((fence) => {
-              const count = crossings.filter((c) => c.fenceLineId === fence.id && c.kind !== 'runs-along').length;
+            {fenceLines.slice(0, rows.limit).map((fence) => {
+              const count = crossingCounts.get(fence.id) ?? 0;
               return (
                 <li key={fence.id}>
                   <button
@@ -56,6 +65,7 @@ export function FenceLinesSummary({
               );
             })}
           </ul>
+          {rows.more}
         </>
       )}
     </section>

@@ -59,7 +59,8 @@ function Workspace({ propertyId, propertyName, extentWgs84, canEdit, children }:
       query.state.data?.some((m) => m.latestRun?.status === 'queued' || m.latestRun?.status === 'running') ? 600 : false,
   });
   const currentRunIds = (models.data ?? []).map((m) => m.currentRun?.id ?? 0).join(',');
-  const drainage = useQuery({ queryKey: ['drainage-lines', propertyId, currentRunIds], queryFn: () => api.drainageLines(propertyId) });
+  // Keyed by the current runs, so wait for them: asking before would fetch everything twice.
+  const drainage = useQuery({ queryKey: ['drainage-lines', propertyId, currentRunIds], queryFn: () => api.drainageLines(propertyId), enabled: models.isSuccess });
   const [visible, setVisible] = useState<TerrainVisibility>({ hillshade: true, contours: true, drainage: true });
 
   // The newest finished run: the server designs the crossings again just after it.
@@ -75,6 +76,7 @@ function Workspace({ propertyId, propertyName, extentWgs84, canEdit, children }:
   const crossings = useQuery({
     queryKey: ['crossings', propertyId, currentRunIds],
     queryFn: () => api.listCrossings(propertyId),
+    enabled: models.isSuccess,
     // Poll briefly after a run finishes, until the crossings analysed after it arrive.
     refetchInterval: (query) => {
       if (!lastRunFinishedAt || Date.now() - Date.parse(lastRunFinishedAt) > ANALYSIS_WAIT_MS) return false;

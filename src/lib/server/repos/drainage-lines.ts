@@ -14,21 +14,6 @@ type DrainageRow = {
   mean_slope: number;
 };
 
-export type DrainageLineFeature = {
-  type: 'Feature';
-  id: number;
-  properties: {
-    id: number;
-    terrainRunId: number | null;
-    streamOrder: number;
-    upstreamAreaStartHa: number;
-    upstreamAreaEndHa: number;
-    lengthM: number;
-    meanSlope: number;
-  };
-  geometry: { type: 'LineString'; coordinates: [number, number][] };
-};
-
 /**
  * Stores a terrain run's drainage lines and drops those of earlier runs over the same elevation
  * model, inside the caller's transaction (a run's lines appear all at once or not at all).
@@ -65,16 +50,17 @@ export async function replaceDrainageLines(
   await trx.batchInsert('drainage_lines', rows, 200);
 }
 
-/** The property's drainage lines as GeoJSON features in WGS84 (RFC 7946). */
-export async function listDrainageLines(propertyId: number, trx: Knex = db()): Promise<DrainageLineFeature[]> {
+/**
+ * The property's drainage lines as GeoJSON text in WGS84 (RFC 7946), built around the stored geometry text instead of parsing
+ * and printing it again: a big station has tens of thousands of lines, and this is a first load.
+ */
+export async function drainageLinesGeoJsonText(propertyId: number, trx: Knex = db()): Promise<string> {
   const rows = await trx<DrainageRow>('drainage_lines')
     .where({ property_id: propertyId })
     .orderBy('id')
     .select('id', 'terrain_run_id', 'geometry', 'stream_order', 'upstream_area_start_m2', 'upstream_area_end_m2', 'length_m', 'mean_slope');
-  return rows.map((row) => ({
-    type: 'Feature',
-    id: row.id,
-    properties: {
+  const features = rows.map((row) => {
+    const properties = JSON.stringify({
       id: row.id,
       terrainRunId: row.terrain_run_id,
       streamOrder: row.stream_order,
@@ -82,9 +68,10 @@ export async function listDrainageLines(propertyId: number, trx: Knex = db()): P
       upstreamAreaEndHa: round(row.upstream_area_end_m2 / 10_000, 3),
       lengthM: round(row.length_m, 1),
       meanSlope: round(row.mean_slope, 5),
-    },
-    geometry: JSON.parse(row.geometry) as DrainageLineFeature['geometry'],
-  }));
+    });
+    return `{"type":"Feature","id":${row.id},"properties":${properties},"geometry":${row.geometry}}`;
+  });
+  return `{"type":"FeatureCollection","features":[${features.join(',')}]}`;
 }
 
 function round(value: number, digits: number): number {

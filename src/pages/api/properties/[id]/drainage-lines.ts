@@ -1,9 +1,9 @@
 import type { APIRoute } from 'astro';
 import { requireRole } from '../../../../lib/server/auth';
-import { listDrainageLines } from '../../../../lib/server/repos/drainage-lines';
+import { drainageLinesGeoJsonText } from '../../../../lib/server/repos/drainage-lines';
 
 /** The property's drainage lines, a GeoJSON FeatureCollection in WGS84 (RFC 7946). */
 export const GET: APIRoute = async ({ locals, params }) => {
   const { propertyId } = await requireRole(locals, params.id, 'viewer');
-  return Response.json({ type: 'FeatureCollection', features: await listDrainageLines(propertyId) }, { headers: { 'Content-Type': 'application/geo+json' } });
+  return new Response(await drainageLinesGeoJsonText(propertyId), { headers: { 'Content-Type': 'application/geo+json' } });
 };
