@@ -54,25 +54,35 @@ export async function storeImportedFile(propertyId: number, sourceFile: string, 
         .returning('id');
       trackIds.push((row as { id: number }).id);
     }
-    const paddockIds: number[] = [];
-    for (const polygon of imported.polygons) {
-      const rings = polygon.rings.map((ring, i) => orientRing(ring, i === 0));
-      const [row] = await t('paddocks')
-        .insert({
-          property_id: propertyId,
-          name: polygon.name.slice(0, 120),
-          geometry: JSON.stringify({ type: 'Polygon', coordinates: rings }),
-          area_ha: polygonAreaHa(rings),
-          ...bboxColumns(rings[0]!),
-          created_at: now,
-        })
-        .returning('id');
-      paddockIds.push((row as { id: number }).id);
-    }
+    const paddockIds = await createPaddocks(propertyId, imported.polygons, t);
     await recordAudit({ propertyId, userId, action: 'file.import', entityType: 'file', entityId: null, detail: { sourceFile, tracks: trackIds.length, paddocks: paddockIds.length } }, t);
     return { trackIds, paddockIds };
   };
   return trx ? write(trx) : db().transaction(write);
+}
+
+/**
+ * Stores paddocks (rings turned to RFC 7946 winding, area on the ellipsoid); the caller records
+ * the audit entry, in the same transaction.
+ */
+export async function createPaddocks(propertyId: number, paddocks: readonly { name: string; rings: [number, number][][] }[], trx: Knex): Promise<number[]> {
+  const now = new Date().toISOString();
+  const ids: number[] = [];
+  for (const paddock of paddocks) {
+    const rings = paddock.rings.map((ring, i) => orientRing(ring, i === 0));
+    const [row] = await trx('paddocks')
+      .insert({
+        property_id: propertyId,
+        name: paddock.name.slice(0, 120),
+        geometry: JSON.stringify({ type: 'Polygon', coordinates: rings }),
+        area_ha: polygonAreaHa(rings),
+        ...bboxColumns(rings[0]!),
+        created_at: now,
+      })
+      .returning('id');
+    ids.push((row as { id: number }).id);
+  }
+  return ids;
 }
 
 export async function listTracks(propertyId: number, trx: Knex = db()): Promise<Track[]> {
