@@ -26,8 +26,8 @@ export interface PlanNumbering {
  * Numbers a plan's fence lines and crossings and names the layout points of each crossing for a
  * handheld GPS: `F{fence} X{crossing} {code}`, at most {@link MAX_WAYPOINT_NAME_LENGTH}
  * characters. Codes: `ES1`/`ES2` end strainers on the near (lower chainage) and far side,
- * `FR1`/`FR2` flex-run strainers likewise, `P{n}` the design's post n (numbered from the near
- * side as the crossing panel numbers them) with `S` added for a stayed post, `BT` the breakaway
+ * `FR1`/`FR2` flex-run strainers likewise, `P{n}` the layout's post n (counted from the near
+ * side, the number in its label) with `S` added for a stayed post, `BT` the breakaway
  * tie (`BT1`, `BT2` … when there are several). Our own scheme, not taken from any other program.
  */
 export function numberPlan(plan: PlanForExport): PlanNumbering {
