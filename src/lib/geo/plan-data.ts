@@ -7,7 +7,7 @@ import type { FenceLine } from '../schemas/plan';
 
 export type LonLat = [number, number];
 
-/** Version of the export's layout; raised when a property is renamed or removed. */
+/** Version of the export's layout; raised when a field is renamed or removed, so an import can tell. */
 export const PLAN_EXPORT_FORMAT_VERSION = 1;
 
 export type PlanFenceLine = Pick<FenceLine, 'id' | 'name' | 'status' | 'coordinates' | 'lengthM' | 'wireSpec' | 'version'>;
