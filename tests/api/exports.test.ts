@@ -110,6 +110,13 @@ describe('exports', () => {
     expect(positions).toBeGreaterThan(0);
     expect(types.filter((t) => t === 'layout-point')).toHaveLength(positions);
     expect(types.filter((t) => t === 'crossing')).toHaveLength(stored.length);
+    // Ground under each post: the design's own ground height (same profile), to the centimetre.
+    const rows = await serverDb()('crossings').where({ property_id: ids.first, design_status: 'designed' }).select('id', 'design');
+    for (const row of rows) {
+      const posts = (JSON.parse(row.design) as { layout: { posts: { groundM: number | null }[] } }).layout.posts;
+      const exported = collection.features.filter((f) => f.properties.crossingId === row.id && /post$/.test(String(f.properties.kind)));
+      expect(exported.map((f) => f.properties.elevationM)).toEqual(posts.map((p) => (p.groundM === null ? null : Number(p.groundM.toFixed(2)))));
+    }
   });
 
   it('gives the same plan as KML 2.2, one Placemark per GeoJSON feature', async () => {
