@@ -60,10 +60,14 @@ const setSecurityHeaders = defineMiddleware(async (_context, next) => {
   return response;
 });
 
-/** JSON bodies have a small limit, file uploads their own; both are checked before reading. */
+/**
+ * JSON bodies have a small limit, file uploads their own; both are checked before reading. Only
+ * `application/json` (what `readJson` takes) counts as JSON: a GeoJSON plan file sent as
+ * `application/geo+json` is an upload.
+ */
 const limitBodies = defineMiddleware((context, next) => {
   const declared = Number(context.request.headers.get('content-length') ?? 0);
-  const isJson = /json/i.test(context.request.headers.get('content-type') ?? '');
+  const isJson = /^application\/json\b/i.test(context.request.headers.get('content-type') ?? '');
   const { maxJsonBodyBytes, maxUploadBytes } = getConfig();
   const limit = isJson ? maxJsonBodyBytes : maxUploadBytes;
   if (isApi(context.url.pathname) && declared > limit) return errorResponse(new PayloadTooLargeError(limit));

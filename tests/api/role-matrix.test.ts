@@ -47,6 +47,15 @@ const KML_FILE = new TextEncoder().encode(
   '<kml xmlns="http://www.opengis.net/kml/2.2"><Placemark><name>Old fence</name><LineString><coordinates>141.64,-31.44 141.65,-31.45</coordinates></LineString></Placemark></kml>',
 );
 
+// A plan file whose fence line lies off the elevation model (west of it): no crossings to design, so
+// the terrain runs' re-analysis of the property stays as quick as before.
+const PLAN_FILE = new TextEncoder().encode(
+  JSON.stringify({
+    type: 'FeatureCollection',
+    features: [{ type: 'Feature', geometry: { type: 'LineString', coordinates: [[141.5, -31.5], [141.51, -31.5]] }, properties: { featureType: 'fence-line', name: 'Imported', status: 'planned' } }],
+  }),
+);
+
 /** A fence line of its own for a change or a delete to act on. */
 async function spareFence(context: Context): Promise<Partial<Context>> {
   const now = new Date().toISOString();
@@ -149,6 +158,10 @@ const MATRIX: Record<string, Entry> = {
   'GET /api/properties/[id]/elevation-models': { expect: atLeast('viewer', 200) },
   'GET /api/properties/[id]/costs': { expect: atLeast('viewer', 200) },
   'GET /api/properties/[id]/materials.csv': { expect: atLeast('viewer', 200) },
+  'GET /api/properties/[id]/exports/plan.geojson': { expect: atLeast('viewer', 200) },
+  'GET /api/properties/[id]/exports/plan.kml': { expect: atLeast('viewer', 200) },
+  'GET /api/properties/[id]/exports/waypoints.gpx': { expect: atLeast('viewer', 200) },
+  'POST /api/properties/[id]/plan-import': { expect: atLeast('manager', 201), file: { bytes: PLAN_FILE, type: 'application/geo+json', query: '?name=plan.geojson' } },
   'GET /api/properties/[id]/crossings': { expect: atLeast('viewer', 200) },
   'POST /api/properties/[id]/crossings/analyse': { expect: atLeast('manager', 200) },
   'GET /api/properties/[id]/crossings/[crossingId]': { expect: atLeast('viewer', 200) },

@@ -99,3 +99,19 @@ export async function readDemoModel(): Promise<ElevationGrid> {
   const height = image.getHeight();
   return { width, height, data, ...uniformCellSize(width, height, sizeX!) };
 }
+
+/** The layer names `ogrinfo -ro -q` lists for a vector file (KML folders, GPX's waypoints …). */
+export function ogrLayers(file: string): string[] {
+  return runGdal('ogrinfo', ['-ro', '-q', file])
+    .split('\n')
+    .map((line) => /^\d+: (.*?)(?: \([^()]*\))?$/.exec(line.trim())?.[1])
+    .filter((name): name is string => Boolean(name));
+}
+
+export type OgrFeature = { properties: Record<string, unknown>; geometry: { type: string; coordinates: unknown } | null };
+
+/** One layer of a vector file as GDAL reads it, written out by `ogr2ogr -f GeoJSON` (extra options before the file). */
+export function ogrFeatures(file: string, layer?: string, options: readonly string[] = []): OgrFeature[] {
+  const out = runGdal('ogr2ogr', ['-f', 'GeoJSON', ...options, '/vsistdout/', file, ...(layer ? [layer] : [])]);
+  return (JSON.parse(out) as { features: OgrFeature[] }).features;
+}

@@ -143,3 +143,40 @@ export function uploadElevationModel(
     xhr.send(file);
   });
 }
+
+export type PlanExportKind = 'geojson' | 'kml' | 'gpx';
+
+const EXPORT_FILES: Record<PlanExportKind, string> = { geojson: 'plan.geojson', kml: 'plan.kml', gpx: 'waypoints.gpx' };
+
+/** The download address of the plan as GeoJSON or KML, or of the crossings' waypoints as GPX (for a link's href). */
+export function exportUrl(propertyId: number, kind: PlanExportKind): string {
+  return `/api/properties/${propertyId}/exports/${EXPORT_FILES[kind]}`;
+}
+
+/** What `POST /api/properties/:id/plan-import` answers. */
+export type ImportedPlanView = {
+  format: 'geojson' | 'kml';
+  fenceLines: number;
+  paddocks: number;
+  fenceLineIds: number[];
+  paddockIds: number[];
+  derivedSkipped: number;
+  unrecognised: number;
+};
+
+/**
+ * Sends a plan file exported from Gullyline (GeoJSON or KML) to a property; its fence lines and
+ * paddocks are added, all or nothing. Rejects with an ApiError carrying the server's reason.
+ */
+export async function importPlan(propertyId: number, file: File): Promise<{ imported: ImportedPlanView }> {
+  const response = await fetch(`/api/properties/${propertyId}/plan-import?${new URLSearchParams({ name: file.name })}`, {
+    method: 'POST',
+    credentials: 'same-origin',
+    // The server tells GeoJSON from KML by the content; the type only keeps the upload out of the JSON body limit.
+    headers: { 'Content-Type': file.type && !/^application\/json\b/i.test(file.type) ? file.type : 'application/octet-stream' },
+    body: file,
+  });
+  const data = (await response.json().catch(() => ({}))) as { imported?: ImportedPlanView; error?: string; fields?: Record<string, string> };
+  if (response.status !== 201 || !data.imported) throw new ApiError(response.status, data.error ?? `The server answered ${response.status}.`, data.fields);
+  return { imported: data.imported };
+}

@@ -59,7 +59,11 @@ export function importLines(text: string): ImportedFile {
   return { format: root, lines, polygons, skipped };
 }
 
-function parseXml(text: string) {
+/**
+ * Parses XML text with @xmldom/xmldom, turning its errors into words.
+ * @throws ImportError when the text is not well-formed XML or has no root element
+ */
+export function parseXml(text: string) {
   const problems: string[] = [];
   let doc;
   try {

@@ -76,6 +76,15 @@ export async function listCrossings(propertyId: number, trx: Knex = db()): Promi
   return rows.map((row) => rowToSummary(row, row.design ? (JSON.parse(row.design) as Record<string, unknown>) : null));
 }
 
+/** Every crossing of a property with its stored design (null before one is made), by fence line then chainage. */
+export async function listCrossingsWithDesigns(propertyId: number, trx: Knex = db()) {
+  const rows = await selectRows(trx).where('c.property_id', propertyId).orderBy([{ column: 'c.fence_line_id' }, { column: 'c.chainage_m' }]);
+  return rows.map((row) => {
+    const design = row.design ? (JSON.parse(row.design) as Record<string, unknown>) : null;
+    return { ...rowToSummary(row, design), design };
+  });
+}
+
 /** One crossing with its inputs and full design. @throws NotFoundError (also for another property's crossing) */
 export async function getCrossing(propertyId: number, id: number, trx: Knex = db()) {
   const row = await selectRows(trx).where({ 'c.id': id, 'c.property_id': propertyId }).first();

@@ -118,3 +118,19 @@ export async function createPaddocksFromFences(propertyId: number, fenceLineIds:
     return { paddocks, enclosedAreas: areas.length, alreadyCovered: areas.length - fresh.length };
   });
 }
+
+/**
+ * Stores paddocks read from a file (rings turned to RFC 7946 winding, area on the ellipsoid); the
+ * caller records the audit entry, in the same transaction.
+ */
+export async function createPaddocks(propertyId: number, paddocks: readonly { name: string; rings: [number, number][][] }[], trx: Knex): Promise<number[]> {
+  const now = new Date().toISOString();
+  const ids: number[] = [];
+  for (const paddock of paddocks) {
+    const [row] = await trx('paddocks')
+      .insert({ property_id: propertyId, name: paddock.name.slice(0, 120), ...paddockGeometryColumns(paddock.rings), version: 1, created_at: now, updated_at: now })
+      .returning('id');
+    ids.push((row as { id: number }).id);
+  }
+  return ids;
+}

@@ -4,9 +4,8 @@ import type { ImportedFile } from '../../geo/import-lines';
 import { db } from '../db';
 import { NotFoundError } from '../http';
 import { recordAudit } from './audit-log';
-import { paddockGeometryColumns } from './paddocks';
-
 import type { Track } from '../../schemas/tracks';
+import { createPaddocks } from './paddocks';
 
 export type { Track };
 
@@ -48,20 +47,7 @@ export async function storeImportedFile(propertyId: number, sourceFile: string, 
         .returning('id');
       trackIds.push((row as { id: number }).id);
     }
-    const paddockIds: number[] = [];
-    for (const polygon of imported.polygons) {
-      const [row] = await t('paddocks')
-        .insert({
-          property_id: propertyId,
-          name: polygon.name.slice(0, 120),
-          ...paddockGeometryColumns(polygon.rings),
-          version: 1,
-          created_at: now,
-          updated_at: now,
-        })
-        .returning('id');
-      paddockIds.push((row as { id: number }).id);
-    }
+    const paddockIds = await createPaddocks(propertyId, imported.polygons, t);
     await recordAudit({ propertyId, userId, action: 'file.import', entityType: 'file', entityId: null, detail: { sourceFile, tracks: trackIds.length, paddocks: paddockIds.length } }, t);
     return { trackIds, paddockIds };
   };
