@@ -3,56 +3,11 @@
 // the drainage line the map shows (the main creek, found near a point of the generator's creek
 // centreline in data-samples/saltbush-rise.json), so the angle the app reports is checked against
 // geometry made outside it.
-import { readFileSync } from 'node:fs';
 import type { Browser, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { DEMO_ACCOUNTS, DEMO_PASSWORD } from '../../scripts/demo-accounts';
-import { createToWgs84 } from '../../src/lib/geo/reproject';
-import { lookupCrs } from '../../src/lib/server/crs-registry';
 import { appContext, launchBrowser, screenshot, seedDemoIntoTestServer, signInThroughPage, waitForMap } from '../helpers/browser';
-
-type LonLat = [number, number];
-const manifest = JSON.parse(readFileSync('data-samples/saltbush-rise.json', 'utf8')) as {
-  crs: string;
-  creeks: { id: string; centrelineXY: [number, number][] }[];
-};
-const toWgs84 = createToWgs84(lookupCrs(manifest.crs)!.proj4);
-const mainCreekPoint = (index: number): LonLat => toWgs84(manifest.creeks.find((c) => c.id === 'main-creek')!.centrelineXY[index]!);
-
-// Local flat-earth metres about a point: good to well under 0.1° over a few hundred metres.
-const metresPerDegree = (lat: number) => ({ x: 111_320 * Math.cos((lat * Math.PI) / 180), y: 110_574 });
-
-/**
- * A straight fence `lengthM` long through the middle of the drainage-line segment nearest `near`,
- * at `angleDeg` to that segment's direction (drainage lines run downstream).
- */
-function fenceAcrossSegment(lines: LonLat[][], near: LonLat, angleDeg: number, lengthM = 300): { ends: [LonLat, LonLat]; middle: LonLat } {
-  const k = metresPerDegree(near[1]);
-  let best: { a: LonLat; b: LonLat; d: number } | null = null;
-  for (const line of lines) {
-    for (let i = 1; i < line.length; i += 1) {
-      const a = line[i - 1]!;
-      const b = line[i]!;
-      const mid = [(a[0] + b[0]) / 2, (a[1] + b[1]) / 2];
-      const d = Math.hypot((mid[0]! - near[0]) * k.x, (mid[1]! - near[1]) * k.y);
-      if (!best || d < best.d) best = { a, b, d };
-    }
-  }
-  const { a, b } = best!;
-  const middle: LonLat = [(a[0] + b[0]) / 2, (a[1] + b[1]) / 2];
-  const heading = Math.atan2((b[1] - a[1]) * k.y, (b[0] - a[0]) * k.x) + (angleDeg * Math.PI) / 180;
-  const end = (sign: number): LonLat => [middle[0] + (sign * (lengthM / 2) * Math.cos(heading)) / k.x, middle[1] + (sign * (lengthM / 2) * Math.sin(heading)) / k.y];
-  return { ends: [end(-1), end(1)], middle };
-}
-
-async function drainageLines(page: Page, propertyId: number): Promise<LonLat[][]> {
-  return page.evaluate(async (id) => {
-    const collection = (await (await fetch(`/api/properties/${id}/drainage-lines`)).json()) as { features: { geometry: { coordinates: [number, number][] } }[] };
-    return collection.features.map((feature) => feature.geometry.coordinates);
-  }, propertyId);
-}
-
-const propertyIdOf = (page: Page) => Number(new URL(page.url()).pathname.split('/').at(-1));
+import { drainageLines, fenceAcrossSegment, mainCreekPoint, propertyIdOf } from '../helpers/creek-fence';
 
 let browser: Browser;
 beforeAll(async () => {

@@ -8,6 +8,7 @@ import type { Browser } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { DEMO_ACCOUNTS, DEMO_PASSWORD } from '../../scripts/demo-accounts';
 import { appContext, launchBrowser, screenshot, seedDemoIntoTestServer, signInThroughPage, waitForMap } from '../helpers/browser';
+import { drainageLines, fenceAcrossSegment, mainCreekPoint, propertyIdOf } from '../helpers/creek-fence';
 
 let browser: Browser;
 beforeAll(async () => {
@@ -20,7 +21,7 @@ afterAll(() => browser?.close());
 const shoelace = (ring: number[][]) => ring.slice(1).reduce((sum, [x, y], i) => sum + (ring[i]![0]! * y! - x! * ring[i]![1]!), 0);
 
 describe('realign and export', () => {
-  it('accepts a square crossing for the 35° one, then downloads a valid GeoJSON plan with it', async () => {
+  it('accepts a square crossing for an oblique one, then downloads a valid GeoJSON plan with it', async () => {
     const manager = DEMO_ACCOUNTS.find((a) => a.role === 'manager')!;
     const { context, outsideRequests } = await appContext(browser);
     const page = await context.newPage();
@@ -30,7 +31,19 @@ describe('realign and export', () => {
     await waitForMap(page);
     await page.getByTestId('crossing-row').first().waitFor({ timeout: 60_000 });
 
-    await page.getByTestId('crossing-row').filter({ hasText: 'South cross fence' }).filter({ hasText: /3[2-8]°/ }).first().click();
+    // A fence of its own across the main creek at 35° (the demo's fences stay as other tests expect them).
+    const propertyId = propertyIdOf(page);
+    const { ends } = fenceAcrossSegment(await drainageLines(page, propertyId), mainCreekPoint(350), 35, 400);
+    await page.evaluate(
+      async ({ id, coordinates }) => {
+        const response = await fetch(`/api/properties/${id}/fence-lines`, { method: 'POST', headers: { 'Content-Type': 'application/json' }, body: JSON.stringify({ name: 'Oblique test fence', coordinates }) });
+        if (response.status !== 201) throw new Error(`fence not made: ${response.status}`);
+      },
+      { id: propertyId, coordinates: ends },
+    );
+    await page.reload();
+    await waitForMap(page);
+    await page.getByTestId('crossing-row').filter({ hasText: 'Oblique test fence' }).filter({ hasText: /3[3-7]°/ }).first().click();
     await page.getByTestId('crossing-detail').waitFor();
     await page.getByRole('button', { name: 'Suggest a square crossing' }).click();
     const preview = page.getByTestId('realign-preview');
@@ -48,7 +61,7 @@ describe('realign and export', () => {
     const text = readFileSync((await download.path())!, 'utf8');
     const plan = check(text) as { features: { geometry: { type: string; coordinates: unknown }; properties: Record<string, unknown> }[] };
     const fenceNames = plan.features.filter((f) => f.geometry.type === 'LineString').map((f) => JSON.stringify(f.properties));
-    expect(fenceNames.some((p) => p.includes('South cross fence'))).toBe(true);
+    expect(fenceNames.some((p) => p.includes('Oblique test fence'))).toBe(true);
     for (const feature of plan.features.filter((f) => f.geometry.type === 'Polygon')) {
       const [outer, ...holes] = feature.geometry.coordinates as number[][][];
       expect(shoelace(outer!)).toBeGreaterThan(0);
