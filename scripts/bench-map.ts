@@ -100,6 +100,8 @@ const INSTRUMENT_PAGE = `(() => {
         }
       };
       map.on('idle', onIdle);
+      // Already idle when published (the first fit needed no camera move): no idle event follows.
+      if (map.loaded()) onIdle();
     },
   });
 })();`;

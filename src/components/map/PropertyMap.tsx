@@ -1,7 +1,7 @@
 import 'maplibre-gl/dist/maplibre-gl.css';
 import { useEffect, useId, useMemo, useRef, useState, type ReactNode } from 'react';
 import Map, { Layer, NavigationControl, ScaleControl, Source, useMap, type MapRef } from 'react-map-gl/maplibre';
-import { LngLat, type LngLatBoundsLike, type MapGeoJSONFeature, type Map as MaplibreMap, type MapMouseEvent } from 'maplibre-gl';
+import type { LngLatBoundsLike, MapGeoJSONFeature, Map as MaplibreMap, MapMouseEvent } from 'maplibre-gl';
 import { createExtentFeatures, toUsableExtent } from './extent';
 import { graticuleBboxFor, type BboxWgs84 } from './graticule';
 import { PROPERTY_EXTENT_SOURCE_ID, propertyExtentLayers } from './layers';
@@ -50,9 +50,12 @@ function toBounds([west, south, east, north]: BboxWgs84): LngLatBoundsLike {
 function fitExtent(map: MaplibreMap, bbox: BboxWgs84): void {
   const options = { padding: fitPadding(map), maxZoom: MAX_FIT_ZOOM };
   const camera = map.cameraForBounds(toBounds(bbox), options);
-  const center = map.getCenter();
-  const target = camera?.center ? LngLat.convert(camera.center) : null;
-  if (camera && target && Math.abs((camera.zoom ?? 0) - map.getZoom()) < 0.02 && Math.abs(target.lng - center.lng) < 1e-6 && Math.abs(target.lat - center.lat) < 1e-6) return;
+  // Where the fitted centre would fall on screen now: within a pixel of the middle is fitted already.
+  const target = camera?.center ? map.project(camera.center) : null;
+  const canvas = map.getCanvas();
+  const fitted =
+    camera && target && Math.abs((camera.zoom ?? 0) - map.getZoom()) < 0.02 && Math.hypot(target.x - canvas.clientWidth / 2, target.y - canvas.clientHeight / 2) < 1;
+  if (fitted) return;
   map.fitBounds(toBounds(bbox), { ...options, duration: 0 });
 }
 

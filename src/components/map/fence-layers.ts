@@ -7,6 +7,8 @@ export const fenceCasingLayer: LineLayer = {
   id: 'plan-fence-casing',
   type: 'line',
   source: FENCE_LINES_SOURCE_ID,
+  // A whole station's fences at once need no casing, and each casing is a second draw of every line.
+  minzoom: 12,
   layout: { 'line-join': 'round', 'line-cap': 'round' },
   paint: { 'line-color': MAP_COLOURS.casing, 'line-width': byZoom(10, 4, 16, 8), 'line-opacity': 0.9 },
 };

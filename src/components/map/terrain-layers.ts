@@ -82,6 +82,7 @@ export const drainageCasingLayer: LineLayer = {
   id: 'drainage-casing',
   type: 'line',
   source: DRAINAGE_SOURCE_ID,
+  minzoom: 12,
   filter: shownAtThisZoom,
   layout: { 'line-join': 'round', 'line-cap': 'round' },
   paint: { 'line-color': TERRAIN_COLOURS.drainageCasing, 'line-width': widthByOrder(3), 'line-opacity': 0.8 },

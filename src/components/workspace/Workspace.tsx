@@ -206,6 +206,12 @@ function Workspace({ propertyId, propertyName, extentWgs84, canEdit, children }:
   const showKey = runs.length > 0 || fenceStatuses.length > 0 || crossingList.length > 0 || showTracks || showPaddocks;
   const editing = editor.task !== null;
 
+  // The map takes the first plan in one go: each source arriving on its own costs a full redraw,
+  // seconds on a big station where WebGL is drawn in software. After that, changes go straight in.
+  const planArrived = useRef(false);
+  if ([models, fenceLines, crossings, tracks, paddocks].every((query) => !query.isPending) && (models.isError || !drainage.isPending)) planArrived.current = true;
+  const onMap = <T,>(data: T | undefined): T | null => (planArrived.current ? (data ?? null) : null);
+
   return (
     // On a phone the panels are a sheet under the map; side by side each keeps its own height.
     <div className="flex min-h-0 flex-1 flex-col overflow-hidden md:flex-row">
@@ -218,11 +224,11 @@ function Workspace({ propertyId, propertyName, extentWgs84, canEdit, children }:
           onFeatureClick={editing ? undefined : onFeatureClick}
           groundHeightAt={runs.length > 0 ? groundHeightAt : undefined}
         >
-          <TerrainOverlay propertyId={propertyId} runs={runs} drainage={drainage.data ?? null} visible={visible} underExtent={extent !== null} />
-          <TracksOverlay tracks={tracks.data ?? null} paddocks={paddocks.data ?? null} visible={planVisible} />
+          <TerrainOverlay propertyId={propertyId} runs={planArrived.current ? runs : []} drainage={onMap(drainage.data)} visible={visible} underExtent={extent !== null} />
+          <TracksOverlay tracks={onMap(tracks.data)} paddocks={onMap(paddocks.data)} visible={planVisible} />
           <PlanOverlay
-            fenceLines={fenceLines.data ?? null}
-            crossings={crossings.data ?? null}
+            fenceLines={onMap(fenceLines.data)}
+            crossings={onMap(crossings.data)}
             selectedCrossingId={selectedId}
             layoutPoints={layoutPoints}
             realignment={realignment}
