@@ -45,6 +45,9 @@ export interface StyleChoice {
   readonly basis: string;
 }
 
+/** Figures within this of a threshold count as at it: rounding in the flood figures must not flip the style. */
+const TOLERANCE = 1e-6;
+
 const DEBRIS_RANK: Record<DebrisLevel, number> = { light: 0, moderate: 1, heavy: 2 };
 const LABEL: Record<FloodgateStyle, string> = { 'continuous-floodgate': 'continuous floodgate', 'drop-down-section': 'drop-down section' };
 
@@ -81,9 +84,9 @@ export function chooseStyle(input: ChooseStyleInput): StyleChoice {
   if (!(t.dropDownDebris in DEBRIS_RANK)) throw new RangeError(`thresholds.dropDownDebris must be 'moderate' or 'heavy', got ${String(t.dropDownDebris)}`);
 
   const passed: string[] = [];
-  if (width > t.dropDownWidthM) passed.push(`the wet zone is ${width.toFixed(1)} m wide, more than ${t.dropDownWidthM} m: a continuous floodgate that long needs flex runs of about ${Math.round(2.5 * width)} m each side and heavy end strainers`);
-  if (depth > t.dropDownDepthM) passed.push(`the flood is ${depth.toFixed(2)} m deep, more than ${t.dropDownDepthM} m: deep water floats a big debris mat against the wires`);
-  if (velocity > t.dropDownVelocityMs) passed.push(`the flood runs at ${velocity.toFixed(2)} m/s, faster than ${t.dropDownVelocityMs} m/s: drag grows with the square of the speed`);
+  if (width > t.dropDownWidthM + TOLERANCE) passed.push(`the wet zone is ${width.toFixed(1)} m wide, more than ${t.dropDownWidthM} m: a continuous floodgate that long needs flex runs of about ${Math.round(2.5 * width)} m each side and heavy end strainers`);
+  if (depth > t.dropDownDepthM + TOLERANCE) passed.push(`the flood is ${depth.toFixed(2)} m deep, more than ${t.dropDownDepthM} m: deep water floats a big debris mat against the wires`);
+  if (velocity > t.dropDownVelocityMs + TOLERANCE) passed.push(`the flood runs at ${velocity.toFixed(2)} m/s, faster than ${t.dropDownVelocityMs} m/s: drag grows with the square of the speed`);
   if (DEBRIS_RANK[input.debris] >= DEBRIS_RANK[t.dropDownDebris]) passed.push(`${input.debris} debris is expected (the rule switches at ${t.dropDownDebris}): a debris mat, not the wire, carries most of the load`);
 
   const recommended: FloodgateStyle = passed.length > 0 ? 'drop-down-section' : 'continuous-floodgate';

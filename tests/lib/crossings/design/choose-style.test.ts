@@ -37,6 +37,10 @@ describe('chooseStyle by hand', () => {
     expect(chooseStyle({ ...calm, wetZoneWidthM: 30, maxDepthM: 1.2, velocityMs: 1.5, debris: 'moderate' }).style).toBe('continuous-floodgate');
   });
 
+  it('depth-at-threshold-after-rounding: a 1.2 m mark computed as 1.2000000000000028 m stays at the threshold', () => {
+    expect(chooseStyle({ ...calm, maxDepthM: 1.2000000000000028 }).style).toBe('continuous-floodgate');
+  });
+
   it('lets moderate debris switch when the setting says so', () => {
     expect(chooseStyle({ ...calm, debris: 'moderate', thresholds: { ...THRESHOLDS, dropDownDebris: 'moderate' } }).style).toBe('drop-down-section');
   });
