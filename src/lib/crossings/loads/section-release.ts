@@ -27,8 +27,8 @@ export interface SectionRelease {
   readonly releaseEachEndKn: number;
   /** Both ends together: the flood load at which the section drops, kN. */
   readonly releaseTotalKn: number;
-  /** Mean flow speed at which the drag reaches the release load, m/s (same debris and depth). */
-  readonly releaseVelocityMs: number;
+  /** Mean flow speed at which the drag reaches the release load, m/s (same debris and depth); null when the flood has no drag to scale. */
+  readonly releaseVelocityMs: number | null;
   /** The design flood's drag on the section reaches the release load. */
   readonly releasesInDesignFlood: boolean;
   /** The fence's strain on a terminating end assembly: wires × pretension, kN. */
@@ -73,7 +73,7 @@ export function checkSectionRelease(input: SectionReleaseInput): SectionRelease 
   const velocityMs = checkNumber(input.loads.inputs?.velocityMs, { name: 'loads.inputs.velocityMs', what: 'the design speed', unit: 'm/s', min: 0 });
 
   const releaseTotalKn = 2 * releaseEachEndKn;
-  const releaseVelocityMs = designKn > 0 ? velocityMs * Math.sqrt(releaseTotalKn / designKn) : Infinity;
+  const releaseVelocityMs = designKn > 0 && velocityMs > 0 ? velocityMs * Math.sqrt(releaseTotalKn / designKn) : null;
   const releasesInDesignFlood = designKn >= releaseTotalKn;
   const fenceStrainKn = (wireCount * pretensionN) / 1000;
   const endAssemblyCapacityKn = (wireCount * safe * breakingN) / 1000;
@@ -83,8 +83,8 @@ export function checkSectionRelease(input: SectionReleaseInput): SectionRelease 
   const kn = (x: number) => `${x.toFixed(2)} kN`;
   const reasons = [
     releasesInDesignFlood
-      ? `The design flood drags ${kn(designKn)} on the section, more than the ${kn(releaseTotalKn)} at which its two end ties let go: it drops once the flow passes about ${releaseVelocityMs.toFixed(2)} m/s.`
-      : `The design flood drags ${kn(designKn)} on the section, less than the ${kn(releaseTotalKn)} at which its end ties let go (reached at about ${Number.isFinite(releaseVelocityMs) ? releaseVelocityMs.toFixed(2) : '—'} m/s): it may hang on through the design flood, holding its end assemblies at up to the release load.`,
+      ? `The design flood drags ${kn(designKn)} on the section, more than the ${kn(releaseTotalKn)} at which its two end ties let go: it drops once the flow passes about ${(releaseVelocityMs ?? 0).toFixed(2)} m/s.`
+      : `The design flood drags ${kn(designKn)} on the section, less than the ${kn(releaseTotalKn)} at which its end ties let go${releaseVelocityMs === null ? '' : ` (reached at about ${releaseVelocityMs.toFixed(2)} m/s)`}: it may hang on through the design flood, holding its end assemblies at up to the release load.`,
     endAssemblyHolds
       ? `Each end assembly holds the fence's ${wireCount} wires at ${pretensionN} N (${kn(fenceStrainKn)}) plus the section's pull until release (${kn(releaseEachEndKn)}), within the ${kn(endAssemblyCapacityKn)} it is built for (${wireCount} × ${Math.round(100 * safe)} % of ${input.wire.name}'s ${breakingN} N).`
       : `Each end assembly would carry the fence's strain (${kn(fenceStrainKn)}) plus the section's pull (${kn(releaseEachEndKn)}), more than the ${kn(endAssemblyCapacityKn)} it is built for: lighten the ties or strengthen the end assemblies.`,
