@@ -53,23 +53,16 @@ export function StyleComparison({ propertyId, crossing, comparison, canEdit }: P
         <Why summary="Where the rule comes from" reasons={[comparison.basis]} />
       </div>
 
-      <div className="@container mt-3">
-        <div className="grid grid-cols-1 gap-3 @md:grid-cols-2">
-          {comparison.sides.map((side) => (
-            <StyleCard
-              key={side.style}
-              side={side}
-              recommended={side.style === recommendation.style}
-              canChoose={canEdit && !side.inPlan}
-              busy={choose.isPending}
-              onChoose={() => {
-                setMessage(null);
-                choose.mutate(side.style);
-              }}
-            />
-          ))}
-        </div>
-      </div>
+      <ComparisonTable
+        sides={comparison.sides}
+        recommended={recommendation.style}
+        canEdit={canEdit}
+        busy={choose.isPending}
+        onChoose={(style) => {
+          setMessage(null);
+          choose.mutate(style);
+        }}
+      />
       {choose.isPending && <p className="mt-2 text-sm text-bark-700" role="status">Designing the crossing again…</p>}
       {message && <p className="mt-2 text-sm text-saltbush-700" role="status">{message}</p>}
       {choose.error && (
@@ -96,54 +89,87 @@ export function StyleComparison({ propertyId, crossing, comparison, canEdit }: P
   );
 }
 
-function StyleCard({ side, recommended, canChoose, busy, onChoose }: { side: StyleSideView; recommended: boolean; canChoose: boolean; busy: boolean; onChoose: () => void }) {
-  const c = side.counts;
-  const rows: [string, string][] = [
-    ['End assemblies', String(c.endAssemblies)],
-    ['Flex-run strainers', c.flexRunStrainers ? `${c.flexRunStrainers}, ${formatMetres(side.flexRunEachSideM, 0)} each side` : 'none'],
-    ['Wires', side.wiresRunThrough ? 'run through' : 'end on both banks'],
-    ['Posts · stays', `${c.posts} · ${c.stays}`],
-    ['Hung · other droppers', `${c.hungDroppers} · ${c.droppers}`],
-    ['Breakaway ties', String(c.breakawayTies)],
-    ['Flood load, each end assembly', formatValue(side.endAssemblyLoadKn, 2, 'kN')],
+type TableProps = { sides: readonly StyleSideView[]; recommended: CrossingStyle; canEdit: boolean; busy: boolean; onChoose: (style: CrossingStyle) => void };
+
+/** The two styles in two columns, one row per measure, so each figure sits beside its twin. */
+function ComparisonTable({ sides, recommended, canEdit, busy, onChoose }: TableProps) {
+  const rows: [string, (side: StyleSideView) => string][] = [
+    ['End assemblies', (s) => String(s.counts.endAssemblies)],
+    ['Flex-run strainers', (s) => (s.counts.flexRunStrainers ? `${s.counts.flexRunStrainers}, runs of ${formatMetres(s.flexRunEachSideM, 0)}` : 'none')],
+    ['Wires', (s) => (s.wiresRunThrough ? 'run through' : 'end on both banks')],
+    ['Posts', (s) => String(s.counts.posts)],
+    ['Stays', (s) => String(s.counts.stays)],
+    ['Hung droppers', (s) => String(s.counts.hungDroppers)],
+    ['Other droppers', (s) => String(s.counts.droppers)],
+    ['Breakaway ties', (s) => String(s.counts.breakawayTies)],
+    ['Flood load on each end assembly', (s) => formatValue(s.endAssemblyLoadKn, 2, 'kN')],
   ];
   return (
-    <article
-      className={`rounded-lg border p-3 text-sm ${side.inPlan ? 'border-2 border-creek-700 bg-sand-50' : 'border-sand-300 bg-sand-100'}`}
-      aria-label={STYLE_LABEL[side.style]}
-      data-testid={`style-${side.style}`}
-    >
-      <h4 className="font-bold text-bark-900">{STYLE_LABEL[side.style]}</h4>
-      <p className="mt-1 flex flex-wrap gap-1">
-        {side.inPlan && <span className="rounded bg-creek-700 px-2 py-0.5 text-xs font-semibold text-white">In the plan</span>}
-        {recommended && <span className="rounded bg-saltbush-700 px-2 py-0.5 text-xs font-semibold text-white">Recommended</span>}
-      </p>
-      <dl className="mt-2 grid grid-cols-[1fr_auto] gap-x-3 gap-y-1">
-        {rows.map(([label, value]) => (
-          <div key={label} className="contents">
-            <dt className="text-bark-700">{label}</dt>
-            <dd className="text-right tabular-nums">{value}</dd>
-          </div>
-        ))}
-        <dt className="text-bark-700">Cost to build</dt>
-        <dd className="text-right font-semibold tabular-nums">{side.cost ? dollars(side.cost.totalCents) : '—'}</dd>
-      </dl>
-      {side.cost && (
-        <p className="mt-1 text-xs text-bark-700">
-          Materials {dollars(side.cost.materialsCents)} + labour {dollars(side.cost.labourCents)} ({formatValue(side.cost.labourDays, 1, 'days')})
-          {side.cost.complete ? '' : `; ${side.cost.unpriced.length} item${side.cost.unpriced.length === 1 ? '' : 's'} without a price, not counted`}.
-        </p>
-      )}
-      <p className="mt-2 font-semibold text-bark-900">After a flood</p>
-      <p>
-        {side.afterFlood.work}: about {hours(side.afterFlood.hours)}.
-      </p>
-      <Why reasons={[side.endAssemblyLoadReason, side.afterFlood.reason, ...side.strengths.map((s) => `For: ${s}`), ...side.weaknesses.map((w) => `Against: ${w}`)]} />
-      {canChoose && (
-        <button type="button" className="btn-primary mt-2 w-full" disabled={busy} onClick={onChoose}>
-          Build it this way instead
-        </button>
-      )}
-    </article>
+    <div className="mt-3 overflow-x-auto">
+      <table className="w-full table-fixed text-left text-sm" data-testid="style-comparison">
+        <caption className="sr-only">The continuous floodgate and the drop-down section compared</caption>
+        <thead>
+          <tr className="align-bottom">
+            <th className="w-[34%] py-1 pr-2" scope="col">
+              <span className="sr-only">Measure</span>
+            </th>
+            {sides.map((side) => (
+              <th key={side.style} scope="col" className={`px-2 py-1 font-bold text-bark-900 ${side.inPlan ? 'bg-sand-100' : ''}`} data-testid={`style-${side.style}`}>
+                {STYLE_LABEL[side.style]}
+                <span className="mt-1 flex flex-wrap gap-1 font-semibold">
+                  {side.inPlan && <span className="rounded bg-creek-700 px-1.5 py-0.5 text-xs text-white">In the plan</span>}
+                  {side.style === recommended && <span className="rounded bg-saltbush-700 px-1.5 py-0.5 text-xs text-white">Recommended</span>}
+                </span>
+              </th>
+            ))}
+          </tr>
+        </thead>
+        <tbody>
+          {rows.map(([label, value]) => (
+            <tr key={label} className="border-t border-sand-200 align-top">
+              <th scope="row" className="py-1.5 pr-2 font-normal text-bark-700">{label}</th>
+              {sides.map((side) => (
+                <td key={side.style} className={`px-2 py-1.5 tabular-nums ${side.inPlan ? 'bg-sand-100' : ''}`}>{value(side)}</td>
+              ))}
+            </tr>
+          ))}
+          <tr className="border-t border-sand-300 align-top">
+            <th scope="row" className="py-1.5 pr-2 font-semibold text-bark-900">Cost to build</th>
+            {sides.map((side) => (
+              <td key={side.style} className={`px-2 py-1.5 ${side.inPlan ? 'bg-sand-100' : ''}`}>
+                <span className="font-semibold tabular-nums">{side.cost ? dollars(side.cost.totalCents) : '—'}</span>
+                {side.cost && (
+                  <span className="block text-xs text-bark-700">
+                    materials {dollars(side.cost.materialsCents)}, labour {dollars(side.cost.labourCents)}
+                    {side.cost.complete ? '' : `; ${side.cost.unpriced.length} item${side.cost.unpriced.length === 1 ? '' : 's'} not priced`}
+                  </span>
+                )}
+              </td>
+            ))}
+          </tr>
+          <tr className="border-t border-sand-200 align-top">
+            <th scope="row" className="py-1.5 pr-2 font-semibold text-bark-900">After a flood</th>
+            {sides.map((side) => (
+              <td key={side.style} className={`px-2 py-1.5 ${side.inPlan ? 'bg-sand-100' : ''}`}>
+                {side.afterFlood.work}: <span className="font-semibold">about {hours(side.afterFlood.hours)}</span>
+              </td>
+            ))}
+          </tr>
+          <tr className="align-top">
+            <td />
+            {sides.map((side) => (
+              <td key={side.style} className={`px-2 pb-2 ${side.inPlan ? 'bg-sand-100' : ''}`}>
+                <Why reasons={[side.endAssemblyLoadReason, side.afterFlood.reason, ...side.strengths.map((x) => `For: ${x}`), ...side.weaknesses.map((x) => `Against: ${x}`)]} />
+                {canEdit && !side.inPlan && (
+                  <button type="button" className="btn-primary mt-1 w-full" disabled={busy} onClick={() => onChoose(side.style)}>
+                    Build it this way
+                  </button>
+                )}
+              </td>
+            ))}
+          </tr>
+        </tbody>
+      </table>
+    </div>
   );
 }
