@@ -12,6 +12,7 @@ import { FloodSection } from './crossing/FloodSection';
 import { isDesigned } from './crossing/is-designed';
 import { KindNote } from './crossing/KindNote';
 import { RealignmentBox, type RealignmentPreview } from './crossing/RealignmentBox';
+import { StyleComparison } from './crossing/StyleComparison';
 import { SafetyCautions } from './crossing/WarningsAndCautions';
 
 export { crossingDetailQuery, type RealignmentPreview };
@@ -32,7 +33,7 @@ type Props = {
   notice: string | null;
 };
 
-/** One crossing: its angle, catchment, design floods, floodgate layout with reasons, checks, materials and cautions. */
+/** One crossing: its angle, catchment, design floods, floodgate layout with reasons, checks, materials, both styles compared, and cautions. */
 export default function CrossingDetail({ propertyId, summary, canEdit, onClose, onShowOnMap, realignment, onRealignmentChange, onRealigned, revealSeq, notice }: Props) {
   const query = useQuery(crossingDetailQuery(propertyId, summary.id, summary.computedAt));
   const crossing = query.data;
@@ -84,7 +85,10 @@ export default function CrossingDetail({ propertyId, summary, canEdit, onClose, 
           <KindNote crossing={crossing} />
           <CatchmentSection crossing={crossing} />
           {isDesigned(design) ? (
-            <DesignSections design={design} crossing={crossing} onEditInputs={editInputs} />
+            <>
+              <DesignSections design={design} crossing={crossing} onEditInputs={editInputs} />
+              {design.comparison && <StyleComparison propertyId={propertyId} crossing={crossing} comparison={design.comparison} canEdit={canEdit} />}
+            </>
           ) : design && 'problem' in design ? (
             <>
               <DesignProblem designStatus={crossing.designStatus} design={design} canEdit={canEdit} />

@@ -1,6 +1,9 @@
 import type { CrossingInputs, DesignSettings } from '../schemas/crossing';
 import { DEFAULT_DESIGN_SETTINGS } from '../schemas/crossing';
+import { compareStyles, type StyleComparison } from './compare-styles';
 import { FENCING_CAUTIONS } from './design/cautions';
+import { chooseStyle, type StyleChoice } from './design/choose-style';
+import type { FloodgateStyle } from './design/floodgate-input';
 import { channelCrossSection, NoChannelError, type ChannelCrossSection } from './design/cross-section';
 import { layoutFloodgate, type FloodgateLayout } from './design/floodgate-layout';
 import type { GroundPoint } from './design/ground-profile';
@@ -63,6 +66,10 @@ export type CrossingDesign =
       readonly warnings: string[];
       readonly cautions: readonly string[];
       readonly used: Record<string, number | string>;
+      /** Which style and why: the planner's, or the default rule's. */
+      readonly styleChoice: StyleChoice;
+      /** Both styles side by side, designed from the same flood and ground. */
+      readonly comparison: StyleComparison;
     };
 
 /** Slopes flatter than this are taken as this for the flood (a flat bed carries nothing by Manning). */
@@ -81,7 +88,6 @@ export function designCrossing(input: CrossingDesignInput): CrossingDesign {
   const channelN = inputs.channelN ?? settings.channelN;
   const overbankN = inputs.overbankN ?? settings.overbankN;
   const freeboardM = inputs.freeboardM ?? settings.freeboardM;
-  const style = inputs.style ?? 'continuous-floodgate';
   const energySlope = Math.max(input.channelSlope, MIN_ENERGY_SLOPE);
 
   let section: ChannelCrossSection;
@@ -131,58 +137,87 @@ export function designCrossing(input: CrossingDesignInput): CrossingDesign {
 
   const wetZone = findWetZone(input.profile, bedChainageM, levelM, freeboardM);
   const plainWire = findWireType(input.fence.plainWireTypeId);
+  const styleChoice = chooseStyle({
+    wetZoneWidthM: wetZone.lengthM,
+    maxDepthM: wetZone.maxDepthM,
+    velocityMs: meanVelocityMs,
+    debris: inputs.debris ?? settings.debris,
+    plannerStyle: inputs.style,
+    thresholds: { dropDownWidthM: settings.dropDownWidthM, dropDownDepthM: settings.dropDownDepthM, dropDownVelocityMs: settings.dropDownVelocityMs, dropDownDebris: settings.dropDownDebris },
+  });
   // The default deflection: the design flood depth at the deepest point.
   const deflectionM = Math.min(wetZone.maxDepthM, 0.45 * wetZone.lengthM);
-  let wireCheck: FlexRun | null = null;
-  if (style === 'continuous-floodgate') {
-    wireCheck = requiredFlexRun({
-      floodgateSpanM: wetZone.lengthM,
-      deflectionM,
-      wire: plainWire,
-      pretensionN: settings.pretensionN,
-      safeFractionOfBreaking: settings.safeFractionOfBreaking,
-    });
-    if (deflectionM < wetZone.maxDepthM) warnings.push('The wire check pushes the wires by 45 % of the floodgate span, less than the flood depth, since a deeper push than that is not a wire stretching but a wire lying flat.');
-  }
-  const layout = layoutFloodgate({
-    profile: input.profile,
-    crossingChainageM: bedChainageM,
-    crossingAngleDeg: input.crossingAngleDeg,
-    floodLevelM: levelM,
-    meanVelocityMs,
-    energySlope,
-    manningN: channelN,
-    style,
-    settings: {
-      freeboardM,
-      strainerSetbackM: settings.strainerSetbackM,
-      postSpacingM: settings.floodgatePostSpacingM,
-      braceDepthM: settings.braceDepthM,
-      braceVelocityMs: settings.braceVelocityMs,
-      minEmbedmentM: settings.minEmbedmentM,
-      preferredEmbedmentM: settings.preferredEmbedmentM,
-    },
-    fence: { wireHeightsM: input.fence.wireHeightsM, wireKinds: input.fence.wireKinds },
-    ...(wireCheck ? { flexRunEachSideM: wireCheck.flexRunEachSideM } : {}),
-  });
-  const wetWidthM = floods.wettedWidthM ?? wetZone.lengthM;
-  const loads =
-    meanVelocityMs > 0 && wetWidthM > 0
-      ? floodgateLoads({
-          wettedWidthM: wetWidthM,
-          meanDepthM: Math.max(0.01, wetZone.maxDepthM / 2),
-          velocityMs: meanVelocityMs,
-          blockageFraction: settings.blockageFraction,
-          wireCount: layout.wires.filter((wire) => wire.mustBePlain).length,
-          wireDiameterM: plainWire.diameterMm / 1000,
-        })
-      : null;
-  const materials = materialsForCrossing(layout, {
+
+  const materialsSpec = {
     wireHeightsM: input.fence.wireHeightsM,
     wireKinds: input.fence.wireKinds,
     rollLengthM: { plain: plainWire.rollLengthM, barbed: findWireType(input.fence.barbedWireTypeId).rollLengthM },
     postSpacingM: input.fence.postSpacingM,
     dropperSpacingM: input.fence.dropperSpacingM,
+  };
+  const designStyle = (style: FloodgateStyle) => {
+    const styleWarnings: string[] = [];
+    let wireCheck: FlexRun | null = null;
+    if (style === 'continuous-floodgate') {
+      wireCheck = requiredFlexRun({
+        floodgateSpanM: wetZone.lengthM,
+        deflectionM,
+        wire: plainWire,
+        pretensionN: settings.pretensionN,
+        safeFractionOfBreaking: settings.safeFractionOfBreaking,
+      });
+      if (deflectionM < wetZone.maxDepthM) styleWarnings.push('The wire check pushes the wires by 45 % of the floodgate span, less than the flood depth, since a deeper push than that is not a wire stretching but a wire lying flat.');
+    }
+    const layout = layoutFloodgate({
+      profile: input.profile,
+      crossingChainageM: bedChainageM,
+      crossingAngleDeg: input.crossingAngleDeg,
+      floodLevelM: levelM,
+      meanVelocityMs,
+      energySlope,
+      manningN: channelN,
+      style,
+      settings: {
+        freeboardM,
+        strainerSetbackM: settings.strainerSetbackM,
+        postSpacingM: settings.floodgatePostSpacingM,
+        braceDepthM: settings.braceDepthM,
+        braceVelocityMs: settings.braceVelocityMs,
+        minEmbedmentM: settings.minEmbedmentM,
+        preferredEmbedmentM: settings.preferredEmbedmentM,
+      },
+      fence: { wireHeightsM: input.fence.wireHeightsM, wireKinds: input.fence.wireKinds },
+      ...(wireCheck ? { flexRunEachSideM: wireCheck.flexRunEachSideM } : {}),
+    });
+    const wetWidthM = floods.wettedWidthM ?? wetZone.lengthM;
+    const loads =
+      meanVelocityMs > 0 && wetWidthM > 0
+        ? floodgateLoads({
+            wettedWidthM: wetWidthM,
+            meanDepthM: Math.max(0.01, wetZone.maxDepthM / 2),
+            velocityMs: meanVelocityMs,
+            blockageFraction: settings.blockageFraction,
+            wireCount: layout.wires.filter((wire) => wire.mustBePlain).length,
+            wireDiameterM: plainWire.diameterMm / 1000,
+          })
+        : null;
+    const materials = materialsForCrossing(layout, materialsSpec);
+    return { layout, wireCheck, loads, materials, warnings: styleWarnings };
+  };
+  const continuous = designStyle('continuous-floodgate');
+  const dropDown = designStyle('drop-down-section');
+  const { layout, wireCheck, loads, materials, warnings: styleWarnings } = styleChoice.style === 'continuous-floodgate' ? continuous : dropDown;
+  const comparison = compareStyles({
+    continuous,
+    dropDown,
+    choice: styleChoice,
+    fence: materialsSpec,
+    plainWire,
+    pretensionN: settings.pretensionN,
+    safeFractionOfBreaking: settings.safeFractionOfBreaking,
+    sectionReleaseKn: settings.sectionReleaseKn,
+    resetTieHours: settings.resetTieHours,
+    rehangSectionHours: settings.rehangSectionHours,
   });
   return {
     status: 'designed',
@@ -193,8 +228,10 @@ export function designCrossing(input: CrossingDesignInput): CrossingDesign {
     wireCheck,
     loads,
     materials,
-    warnings: [...new Set([...warnings, ...layout.warnings, ...materials.warnings])],
+    warnings: [...new Set([...warnings, ...styleWarnings, ...layout.warnings, ...materials.warnings])],
     cautions: FENCING_CAUTIONS,
-    used: { channelN, overbankN, freeboardM, style, energySlope, deflectionM, pretensionN: settings.pretensionN, safeFractionOfBreaking: settings.safeFractionOfBreaking },
+    styleChoice,
+    comparison,
+    used: { channelN, overbankN, freeboardM, style: styleChoice.style, debris: inputs.debris ?? settings.debris, energySlope, deflectionM, pretensionN: settings.pretensionN, safeFractionOfBreaking: settings.safeFractionOfBreaking },
   };
 }

@@ -50,7 +50,7 @@ export function numberPlan(plan: PlanForExport): PlanNumbering {
     return crossing.layoutPoints.map((point, i) => {
       const code = codes[i]!;
       const shortName = `${tag} ${code}`.slice(0, MAX_WAYPOINT_NAME_LENGTH);
-      return { ...point, code, shortName, description: describe(point, tag, fenceName) };
+      return { ...point, code, shortName, description: describe(point, tag, fenceName, crossing.style) };
     });
   };
   return { fenceNo, crossingTag, namedPoints };
@@ -84,8 +84,12 @@ function codesOf(points: readonly PlanLayoutPoint[]): string[] {
   });
 }
 
-function describe(point: PlanLayoutPoint, tag: string, fenceName: string): string {
-  const parts = [`${point.label}.`, `Crossing ${tag} on fence line "${fenceName}", ${point.chainageM.toFixed(1)} m along the fence.`];
+/** How each crossing style is named in a waypoint's description. */
+const STYLE_NAMES: Record<string, string> = { 'continuous-floodgate': 'continuous floodgate', 'drop-down-section': 'drop-down section' };
+
+function describe(point: PlanLayoutPoint, tag: string, fenceName: string, style: string | null): string {
+  const built = style ? `, built as a ${STYLE_NAMES[style] ?? style}` : '';
+  const parts = [`${point.label}.`, `Crossing ${tag} on fence line "${fenceName}"${built}, ${point.chainageM.toFixed(1)} m along the fence.`];
   if (point.kind === 'floodgate-post' || point.kind === 'line-post') {
     parts.push(point.braced ? 'Stay: yes (braced post).' : 'Stay: no.');
     if (point.hungDropperLink) parts.push(`Hung droppers: ${point.hungDropperLink} link.`);

@@ -204,6 +204,59 @@ type DesignExtras = {
   catchment?: CatchmentView | null;
 };
 
+/** What the crossing's style was chosen by, and the rule's recommendation with its reasons. */
+export type StyleChoiceView = {
+  style: CrossingStyle;
+  chosenBy: 'planner' | 'rule';
+  recommended: CrossingStyle;
+  reasons: string[];
+  thresholds: { dropDownWidthM: number; dropDownDepthM: number; dropDownVelocityMs: number; dropDownDebris: 'moderate' | 'heavy' };
+  basis: string;
+};
+
+/** One style in the comparison; `cost` is priced at read time from the property's price list. */
+export type StyleSideView = {
+  style: CrossingStyle;
+  inPlan: boolean;
+  counts: { endAssemblies: number; flexRunStrainers: number; posts: number; stays: number; hungDroppers: number; droppers: number; breakawayTies: number };
+  wiresRunThrough: boolean;
+  flexRunEachSideM: number;
+  spanM: number;
+  endAssemblyLoadKn: number | null;
+  endAssemblyLoadReason: string;
+  materials: MaterialItemView[];
+  afterFlood: { work: string; hours: number; reason: string };
+  strengths: string[];
+  weaknesses: string[];
+  cost?: { materialsCents: number; labourCents: number; labourDays: number; totalCents: number; complete: boolean; unpriced: string[] };
+};
+
+export type SectionReleaseView = {
+  releaseEachEndKn: number;
+  releaseTotalKn: number;
+  releaseVelocityMs: number | null;
+  releasesInDesignFlood: boolean;
+  fenceStrainKn: number;
+  endAssemblyCapacityKn: number;
+  endAssemblyHolds: boolean;
+  sectionWiresAtKnotKn: number;
+  tieGoesFirst: boolean;
+  reasons: string[];
+  method: string;
+};
+
+/** Both ways to build the crossing, designed from the same flood and ground. */
+export type StyleComparisonView = {
+  stretchM: number;
+  stretchReason: string;
+  sides: [StyleSideView, StyleSideView];
+  release: SectionReleaseView | null;
+  inPlan: CrossingStyle;
+  chosenBy: 'planner' | 'rule';
+  recommendation: { style: CrossingStyle; reasons: string[] };
+  basis: string;
+};
+
 export type DesignedCrossingView = DesignExtras & {
   status: 'designed';
   provisional: boolean;
@@ -215,8 +268,11 @@ export type DesignedCrossingView = DesignExtras & {
   materials: { items: MaterialItemView[]; warnings: string[] };
   warnings: string[];
   /** The values the design used, the property's settings filling what the crossing's inputs left out. */
-  used?: { channelN?: number; overbankN?: number; freeboardM?: number; style?: CrossingStyle };
+  used?: { channelN?: number; overbankN?: number; freeboardM?: number; style?: CrossingStyle; debris?: 'light' | 'moderate' | 'heavy' };
   positions?: LayoutPointView[];
+  /** Absent on designs stored before both styles were compared. */
+  styleChoice?: StyleChoiceView;
+  comparison?: StyleComparisonView;
 };
 
 export type UndesignedCrossingView = DesignExtras & {

@@ -2,6 +2,10 @@ import { z } from 'zod';
 
 export const CROSSING_STYLES = ['continuous-floodgate', 'drop-down-section'] as const;
 export const TC_METHODS = ['bransby-williams', 'pilgrim-mcdermott', 'kirpich'] as const;
+/** How much timber and grass a flood is expected to carry down to the crossing. */
+export const DEBRIS_LEVELS = ['light', 'moderate', 'heavy'] as const;
+export type DebrisLevel = (typeof DEBRIS_LEVELS)[number];
+const debrisMessage = { errorMap: () => ({ message: "Expected debris is 'light', 'moderate' or 'heavy'." }) };
 
 /** What a person sets for one crossing; every field optional (the property's settings fill the rest). */
 export const crossingInputsSchema = z
@@ -13,7 +17,8 @@ export const crossingInputsSchema = z
     aepPercent: z.number().positive('AEP is a percentage above 0.').max(99, 'AEP is a percentage below 100.'),
     tcMethod: z.enum(TC_METHODS),
     freeboardM: z.number().min(0, 'Freeboard cannot be negative.').max(3, 'Keep freeboard under 3 m.'),
-    style: z.enum(CROSSING_STYLES),
+    style: z.enum(CROSSING_STYLES, { errorMap: () => ({ message: "The style is 'continuous-floodgate' or 'drop-down-section'." }) }),
+    debris: z.enum(DEBRIS_LEVELS, debrisMessage),
   })
   .partial()
   .strict();
@@ -42,6 +47,14 @@ export const designSettingsSchema = z
     profileHalfWidthM: z.number().min(20).max(2000),
     labourRatePerDayCents: z.number().int().min(0),
     metresPerDay: z.number().positive().max(10_000),
+    debris: z.enum(DEBRIS_LEVELS, debrisMessage),
+    dropDownWidthM: z.number().min(1).max(1000),
+    dropDownDepthM: z.number().min(0.05).max(20),
+    dropDownVelocityMs: z.number().min(0.05).max(20),
+    dropDownDebris: z.enum(['moderate', 'heavy']),
+    sectionReleaseKn: z.number().min(0.05).max(100),
+    resetTieHours: z.number().min(0).max(200),
+    rehangSectionHours: z.number().min(0).max(200),
   })
   .partial()
   .strict()
@@ -79,6 +92,17 @@ export const DEFAULT_DESIGN_SETTINGS: Required<DesignSettings> = Object.freeze({
   profileHalfWidthM: 150,
   labourRatePerDayCents: 60_000,
   metresPerDay: 400,
+  // The style rule and the after-flood work (see choose-style.ts and compare-styles.ts): common
+  // practice and judgement, no published source; the drop-down section itself is NSW DPI
+  // Primefact 681 (2009) and WA Water Note WN19 (2000).
+  debris: 'moderate',
+  dropDownWidthM: 30,
+  dropDownDepthM: 1.2,
+  dropDownVelocityMs: 1.5,
+  dropDownDebris: 'heavy',
+  sectionReleaseKn: 1.5,
+  resetTieHours: 0.5,
+  rehangSectionHours: 3,
 });
 
 export const ifdTableSchema = z.object({

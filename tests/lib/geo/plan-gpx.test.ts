@@ -32,11 +32,19 @@ describe('planToGpx', () => {
     expect(wpts.map((w) => text(w, 'name'))).toEqual(['F1 X1 ES1', 'F1 X1 ES2', 'F1 X1 FR1', 'F1 X1 FR2', 'F1 X1 P1', 'F1 X1 P2S', 'F1 X1 P3', 'F1 X1 BT']);
     expect(wpts.map((w) => text(w, 'type'))).toEqual(['end-strainer', 'end-strainer', 'flex-run-strainer', 'flex-run-strainer', 'floodgate-post', 'floodgate-post', 'floodgate-post', 'breakaway-tie']);
     const stayed = wpts[5]!;
-    expect(text(stayed, 'desc')).toBe(`Floodgate post 2, stayed. Crossing F1 X1 on fence line "${TRICKY_NAME}", 512.0 m along the fence. Stay: yes (braced post). Hung droppers: open link. Ground 149.8 m.`);
+    expect(text(stayed, 'desc')).toBe(`Floodgate post 2, stayed. Crossing F1 X1 on fence line "${TRICKY_NAME}", built as a continuous floodgate, 512.0 m along the fence. Stay: yes (braced post). Hung droppers: open link. Ground 149.8 m.`);
     expect([stayed.getAttribute('lat'), stayed.getAttribute('lon'), text(stayed, 'ele')]).toEqual(['-31.44092', '141.6455', '149.8']);
     // <ele> only where the ground is known; the schema's order ele, name, desc, type (GPX 1.1 wptType sequence).
     expect(childNames(wpts[2]!)).toEqual(['name', 'desc', 'type']);
     expect(childNames(wpts[0]!)).toEqual(['ele', 'name', 'desc', 'type']);
+  });
+
+  it('names the crossing style in each waypoint description: the crew finds a drop-down section, not a floodgate', () => {
+    const plan = samplePlan();
+    const dropDown = { ...plan, crossings: plan.crossings.map((c) => ({ ...c, style: c.style && 'drop-down-section' })) };
+    const descs = waypoints(planToGpx(dropDown)).map((w) => text(w, 'desc'));
+    expect(descs.length).toBeGreaterThan(0);
+    expect(descs.every((d) => d?.includes('built as a drop-down section'))).toBe(true);
   });
 
   it('keeps every name within the handheld limit and unique, with lat/lon in GPX range (property test)', () => {

@@ -30,7 +30,7 @@ export function formValuesOf(crossing: CrossingDetailView): InputsFormValues {
     runoffCoefficient: text(crossing.inputs.runoffCoefficient),
     aepPercent: text(crossing.inputs.aepPercent),
     freeboardM: text(crossing.inputs.freeboardM),
-    style: crossing.inputs.style ?? 'continuous-floodgate',
+    style: crossing.inputs.style ?? (isDesigned(crossing.design) ? crossing.design.used?.style : undefined) ?? 'continuous-floodgate',
   };
 }
 

@@ -1,10 +1,13 @@
+import { priceMaterials } from '../../crossings/materials/price-materials';
+import type { MaterialItem } from '../../crossings/materials/material-item';
 import { suggestRealignment } from '../../crossings/geometry/suggest-realignment';
-import { crossingInputsSchema, type CrossingInputs } from '../../schemas/crossing';
+import { crossingInputsSchema, DEFAULT_DESIGN_SETTINGS, type CrossingInputs } from '../../schemas/crossing';
 import { db } from '../db';
 import { ConflictError, parseWith } from '../http';
 import { recordAudit } from '../repos/audit-log';
 import { getCrossing, setCrossingInputs } from '../repos/crossings';
 import { getFenceLine, updateFenceLine } from '../repos/fence-lines';
+import { getPropertySettings } from '../repos/property-settings';
 import { analyseCrossings } from './analyse-crossings';
 
 /**
@@ -22,7 +25,34 @@ export async function changeCrossingInputs(propertyId: number, crossingId: numbe
     return result;
   });
   await analyseCrossings(propertyId, [fenceLineId]);
-  return getCrossing(propertyId, crossingId);
+  return crossingDetail(propertyId, crossingId);
+}
+
+type StoredSide = { materials: MaterialItem[]; cost?: unknown };
+
+/**
+ * One crossing with its full design; the two styles of its comparison are priced from the
+ * property's price list and labour rates as they are now (prices change without a new design).
+ */
+export async function crossingDetail(propertyId: number, crossingId: number) {
+  const crossing = await getCrossing(propertyId, crossingId);
+  const comparison = (crossing.design as { comparison?: { stretchM: number; sides: StoredSide[] } } | null)?.comparison;
+  if (!comparison?.sides) return crossing;
+  const settings = await getPropertySettings(propertyId);
+  const design = { ...DEFAULT_DESIGN_SETTINGS, ...settings.designSettings };
+  const labour = { ratePerDayCents: design.labourRatePerDayCents, metresPerDay: design.metresPerDay };
+  for (const side of comparison.sides) {
+    const priced = priceMaterials({ items: side.materials, fenceLengthM: comparison.stretchM, crossingCount: 1 }, settings.priceList, labour);
+    side.cost = {
+      materialsCents: priced.materialsCents,
+      labourCents: priced.labour.costCents,
+      labourDays: priced.labour.days,
+      totalCents: priced.totalCents,
+      complete: priced.complete,
+      unpriced: priced.unpriced.map(({ item, why }) => `${item.description}: ${why}`),
+    };
+  }
+  return crossing;
 }
 
 /** The dog-leg that would make a fair or poor crossing square to the flow, for a person to preview. */

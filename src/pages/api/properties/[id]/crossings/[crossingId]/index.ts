@@ -1,14 +1,13 @@
 import type { APIRoute } from 'astro';
 import { z } from 'zod';
 import { requireRole } from '../../../../../../lib/server/auth';
-import { changeCrossingInputs } from '../../../../../../lib/server/crossings/crossing-service';
+import { changeCrossingInputs, crossingDetail } from '../../../../../../lib/server/crossings/crossing-service';
 import { parseId, readJson } from '../../../../../../lib/server/http';
-import { getCrossing } from '../../../../../../lib/server/repos/crossings';
 
-/** One crossing's full design: profile, floods, layout with reasons, wire check, loads, materials, cautions. */
+/** One crossing's full design: profile, floods, layout with reasons, wire check, loads, materials, both styles compared and priced, cautions. */
 export const GET: APIRoute = async ({ locals, params }) => {
   const { propertyId } = await requireRole(locals, params.id, 'viewer');
-  return Response.json({ crossing: await getCrossing(propertyId, parseId(params.crossingId, 'crossing')) });
+  return Response.json({ crossing: await crossingDetail(propertyId, parseId(params.crossingId, 'crossing')) });
 };
 
 /** Sets the crossing's inputs (flood mark, n, C, AEP, freeboard, style; null to clear) and designs it again. */
