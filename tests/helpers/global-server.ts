@@ -44,6 +44,8 @@ export default async function setup(project: TestProject) {
       DATABASE_URL: '',
       AUTH_SECRET: 'test-secret-that-is-long-enough-for-authjs-0123456789',
       SIGN_IN_MAX_FAILURES_PER_IP: '200',
+      // Above what any one test account makes in a minute; tests/api/limits.test.ts goes past it.
+      EXPENSIVE_REQUESTS_PER_MINUTE: '60',
     },
     stdio: ['ignore', 'pipe', 'pipe'],
   });

@@ -1,9 +1,8 @@
 import type { APIRoute } from 'astro';
-import { fenceLineInputSchema } from '../../../../../../lib/schemas/plan';
 import { requireRole } from '../../../../../../lib/server/auth';
 import { parseId, parseWith } from '../../../../../../lib/server/http';
 import { analyseCrossings } from '../../../../../../lib/server/crossings/analyse-crossings';
-import { createFenceLine } from '../../../../../../lib/server/repos/fence-lines';
+import { createFenceLine, serverFenceLineSchemas } from '../../../../../../lib/server/repos/fence-lines';
 import { getTrack } from '../../../../../../lib/server/repos/tracks';
 
 /** Turns a track into a planned fence line in one step (the track stays as it was). */
