@@ -9,7 +9,7 @@ import { getTrack } from '../../../../../../lib/server/repos/tracks';
 export const POST: APIRoute = async ({ locals, params }) => {
   const { propertyId, user } = await requireRole(locals, params.id, 'manager');
   const track = await getTrack(propertyId, parseId(params.trackId, 'track'));
-  const input = parseWith(fenceLineInputSchema, { name: track.name.slice(0, 120), coordinates: track.coordinates });
+  const input = parseWith(serverFenceLineSchemas().input, { name: track.name.slice(0, 120), coordinates: track.coordinates });
   const fenceLine = await createFenceLine(propertyId, input, user.id);
   await analyseCrossings(propertyId, [fenceLine.id]);
   return Response.json({ fenceLine }, { status: 201 });
