@@ -122,14 +122,34 @@ class Session {
 }
 
 type Kind = 'read' | 'write';
-type Stats = { read: RecordableHistogram; write: RecordableHistogram; byName: Map<string, RecordableHistogram>; requests: number; errors: number; serverErrors: number; firstErrors: string[] };
+
+/**
+ * The mix, as shares of requests (the rest are workspace reads): about what a team working in one
+ * property does; fence edits come only from owner and manager sessions (half the connections), so
+ * they are about SHARE.edit / 2 of all requests.
+ */
+const SHARE = { signIn: 0.02, edit: 0.12, export: 0.03, crossingDesign: 0.15 };
+type Stats = {
+  read: RecordableHistogram;
+  write: RecordableHistogram;
+  byName: Map<string, RecordableHistogram>;
+  requests: number;
+  errors: number;
+  serverErrors: number;
+  /** Crossings gone since their id was read (a terrain run or an edit found them again): 404, expected. */
+  gone: number;
+  firstErrors: string[];
+};
 
 function newStats(): Stats {
-  return { read: createHistogram(), write: createHistogram(), byName: new Map(), requests: 0, errors: 0, serverErrors: 0, firstErrors: [] };
+  return { read: createHistogram(), write: createHistogram(), byName: new Map(), requests: 0, errors: 0, serverErrors: 0, gone: 0, firstErrors: [] };
 }
 
-/** Times one request (body read to the end); a 4xx other than the expected, a 5xx or a failure counts as an error. */
-async function timed(stats: Stats, kind: Kind, name: string, send: () => Promise<Response>): Promise<Response | undefined> {
+/**
+ * Times one request (body read to the end); a 4xx, a 5xx or a failure counts as an error, except
+ * a 404 for a crossing whose id may have been replaced (`mayBeGone`), which is counted apart.
+ */
+async function timed(stats: Stats, kind: Kind, name: string, send: () => Promise<Response>, mayBeGone = false): Promise<Response | undefined> {
   const started = performance.now();
   stats.requests += 1;
   const histogram = stats.byName.get(name) ?? createHistogram();
@@ -144,6 +164,10 @@ async function timed(stats: Stats, kind: Kind, name: string, send: () => Promise
     const body = await response.arrayBuffer();
     record();
     if (response.status >= 500) stats.serverErrors += 1;
+    if (response.status === 404 && mayBeGone) {
+      stats.gone += 1;
+      return undefined;
+    }
     if (response.status >= 400) {
       stats.errors += 1;
       if (stats.firstErrors.length < 5) stats.firstErrors.push(`${name}: ${response.status} ${Buffer.from(body).toString('utf8').slice(0, 200)}`);
@@ -161,17 +185,32 @@ async function timed(stats: Stats, kind: Kind, name: string, send: () => Promise
 type Workspace = { propertyId: number; crossingIds: number[] };
 type Caller = { session: Session; canEdit: boolean; fence?: { id: number; version: number; coordinates: [number, number][] } };
 
+type Task = 'sign-in' | 'edit' | 'export' | 'design' | 'read';
+
+/** What a roll in [0, 1) asks for: the shares of SHARE, reads for what the caller may not do. */
+function taskFor(roll: number, mix: 'full' | 'reads', canEdit: boolean, hasCrossings: boolean): Task {
+  let below = 0;
+  for (const [task, share] of [['sign-in', SHARE.signIn], ['edit', SHARE.edit], ['export', SHARE.export], ['design', SHARE.crossingDesign]] as const) {
+    below += share;
+    if (roll >= below) continue;
+    if (task === 'design') return hasCrossings ? 'design' : 'read';
+    if (mix === 'reads' || (task === 'edit' && !canEdit)) return 'read';
+    return task;
+  }
+  return 'read';
+}
+
 /** One connection's loop: a weighted mix, until the time is up or the request cap is reached. */
 async function runCaller(caller: Caller, workspace: Workspace, stats: Stats, endsAt: number, seed: number, mix: 'full' | 'reads'): Promise<void> {
   const random = createMulberry32(seed);
   const base = `/api/properties/${workspace.propertyId}`;
   const reads = ['elevation-models', 'fence-lines', 'crossings', 'drainage-lines'];
   while (performance.now() < endsAt && stats.requests < maxRequests) {
-    const roll = random();
     const { session } = caller;
-    if (mix === 'full' && roll < 0.02) {
+    const task = taskFor(random(), mix, caller.canEdit && caller.fence !== undefined, workspace.crossingIds.length > 0);
+    if (task === 'sign-in') {
       await timed(stats, 'write', 'sign-in', () => session.signIn());
-    } else if (mix === 'full' && roll < 0.17 && caller.canEdit && caller.fence) {
+    } else if (task === 'edit' && caller.fence) {
       const fence = caller.fence;
       // Nudge the middle vertex a few metres back and forth: the crossings of the line are found again.
       const moved = fence.coordinates.map(([lon, lat], index) => (index === 1 ? [lon + (random() - 0.5) * 0.0001, lat] : [lon, lat]) as [number, number]);
@@ -180,11 +219,16 @@ async function runCaller(caller: Caller, workspace: Workspace, stats: Stats, end
         const { fenceLine } = (await answer.json()) as { fenceLine: { version: number; coordinates: [number, number][] } };
         caller.fence = { id: fence.id, version: fenceLine.version, coordinates: fenceLine.coordinates };
       }
-    } else if (mix === 'full' && roll < 0.2) {
+    } else if (task === 'export') {
       await timed(stats, 'read', 'export', () => session.request('GET', `${base}/exports/plan.geojson`));
-    } else if (roll < 0.35 && workspace.crossingIds.length) {
+    } else if (task === 'design') {
       const id = workspace.crossingIds[Math.floor(random() * workspace.crossingIds.length)]!;
-      await timed(stats, 'read', 'crossing design', () => session.request('GET', `${base}/crossings/${id}`));
+      const answer = await timed(stats, 'read', 'crossing design', () => session.request('GET', `${base}/crossings/${id}`), true);
+      if (!answer) {
+        // Crossings are found again after a terrain run: read the list again, as the workspace does.
+        const list = await timed(stats, 'read', 'crossings', () => session.request('GET', `${base}/crossings`));
+        if (list) workspace.crossingIds = ((await list.json()) as { features: { id: number }[] }).features.map((feature) => feature.id);
+      }
     } else {
       const what = reads[Math.floor(random() * reads.length)]!;
       await timed(stats, 'read', what, () => session.request('GET', `${base}/${what}`));
@@ -205,7 +249,7 @@ function report(title: string, stats: Stats, elapsedS: number): { readP99: numbe
   }
   console.log(`  reads           ${stats.read.count}: p50 ${fmt(ms(stats.read, 50))}, p99 ${fmt(readP99)}, max ${fmt(stats.read.count ? stats.read.max / 1000 : NaN)}`);
   console.log(`  writes          ${stats.write.count}: p50 ${fmt(ms(stats.write, 50))}, p99 ${fmt(writeP99)}, max ${fmt(stats.write.count ? stats.write.max / 1000 : NaN)}`);
-  console.log(`  errors          ${stats.errors} (5xx: ${stats.serverErrors})`);
+  console.log(`  errors          ${stats.errors} (5xx: ${stats.serverErrors})${stats.gone ? `; ${stats.gone} crossing(s) gone since read (404, list read again)` : ''}`);
   for (const line of stats.firstErrors) console.log(`    ${line}`);
   return { readP99, writeP99 };
 }
