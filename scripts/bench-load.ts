@@ -13,7 +13,7 @@
  * while its terrain run is in progress (target: read p99 under 500 ms).
  *
  * `--soak` runs the mix for 10 minutes instead, sampling the server's resident memory every 10 s,
- * and prints its growth (target: under 10 %). The per-person limit on heavy requests is raised for
+ * and prints its growth from the 60 s sample to the last (target: under 10 %). The per-person limit on heavy requests is raised for
  * the benchmark: the mix exports far more often than a person would.
  */
 import { execFileSync, spawn, type ChildProcess } from 'node:child_process';
@@ -354,8 +354,13 @@ async function main(): Promise<void> {
       ['write p99 < 500 ms', main.writeP99 < 500],
     ];
     if (samples.length >= 2) {
-      const growth = ((samples.at(-1)! - samples[0]!) / samples[0]!) * 100;
-      console.log(`  server RSS      first sample ${samples[0]!.toFixed(0)} MB, last ${samples.at(-1)!.toFixed(0)} MB, peak ${Math.max(...samples).toFixed(0)} MB: growth ${growth.toFixed(1)} %`);
+      // The soak measures growth after a minute of warm-up (caches filled, code optimised).
+      const baselineAt = soak ? Math.min(5, samples.length - 2) : 0;
+      const baseline = samples[baselineAt]!;
+      const growth = ((samples.at(-1)! - baseline) / baseline) * 100;
+      console.log(
+        `  server RSS      ${(baselineAt + 1) * 10} s sample ${baseline.toFixed(0)} MB, last ${samples.at(-1)!.toFixed(0)} MB, peak ${Math.max(...samples).toFixed(0)} MB: growth ${growth.toFixed(1)} %`,
+      );
       if (soak) verdicts.push(['memory growth < 10 %', growth < 10]);
     }
 
