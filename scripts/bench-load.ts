@@ -13,8 +13,9 @@
  * while its terrain run is in progress (target: read p99 under 500 ms).
  *
  * `--soak` runs the mix for 10 minutes instead, sampling the server's resident memory every 10 s,
- * and prints its growth from the 60 s sample to the last (target: under 10 %). The per-person limit on heavy requests is raised for
- * the benchmark: the mix exports far more often than a person would.
+ * and prints its growth from the 60 s sample to the last (target: under 10 %). The per-person
+ * limit on heavy requests is raised for the benchmark: the mix exports far more often than a
+ * person would.
  */
 import { execFileSync, spawn, type ChildProcess } from 'node:child_process';
 import { existsSync, mkdtempSync, readFileSync, rmSync } from 'node:fs';
