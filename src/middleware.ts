@@ -3,6 +3,7 @@ import { compressAnswer } from './lib/server/compress';
 import { getConfig } from './lib/server/config';
 import { ensureReady } from './lib/server/startup';
 import { DomainError, PayloadTooLargeError, UnauthorizedError, errorResponse, internalErrorResponse } from './lib/server/http';
+import { limitExpensiveRequests } from './lib/server/request-limit';
 import { loadSessionUser } from './lib/server/session';
 import { throttleSignIn } from './lib/server/sign-in-throttle';
 
@@ -91,4 +92,4 @@ const guardRoutes = defineMiddleware((context, next) => {
   return next();
 });
 
-export const onRequest = sequence(setSecurityHeaders, compressAnswers, answerErrors, prepareDatabase, limitBodies, loadUser, throttleSignIn, guardRoutes);
+export const onRequest = sequence(setSecurityHeaders, compressAnswers, answerErrors, prepareDatabase, limitBodies, loadUser, throttleSignIn, guardRoutes, limitExpensiveRequests);

@@ -186,6 +186,19 @@ describe('fences at the edge of the elevation model', () => {
   });
 });
 
+describe('the crossing list', () => {
+  it('shows the same design figures as each crossing’s full design', async () => {
+    type Figures = { provisional: boolean; style: string | null; floodLevelM: number | null; floodgateLengthM: number | null };
+    const listed = (await crossings()) as unknown as { properties: Figures & { id: number; designStatus: string } }[];
+    expect(listed.some((f) => f.properties.designStatus === 'designed' && f.properties.style !== null && f.properties.floodLevelM !== null)).toBe(true);
+    for (const { properties } of listed) {
+      const { body } = await manager.json<{ crossing: Figures }>('GET', `/api/properties/${propertyId}/crossings/${properties.id}`);
+      const pick = ({ provisional, style, floodLevelM, floodgateLengthM }: Figures) => ({ provisional, style, floodLevelM, floodgateLengthM });
+      expect(pick(properties)).toEqual(pick(body.crossing));
+    }
+  });
+});
+
 describe('materials and cost', () => {
   it('prices every fence line from the price list, with a CSV of the same', async () => {
     const { body } = await manager.json<{ costs: { fenceLines: { name: string; priced: { totalCents: number; complete: boolean } }[]; totals: { totalCents: number; complete: boolean } } }>(

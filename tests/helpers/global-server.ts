@@ -26,12 +26,11 @@ function freePort(): Promise<number> {
 }
 
 /**
- * Starts the built server once per suite, in production mode, with a fresh data folder (its own
- * SQLite file) so the tests exercise exactly what ships.
+ * Starts the built server (production mode) on a free loopback port over a data folder, and
+ * waits until it answers. `extraEnv` adds or overrides settings.
  */
-export default async function setup(project: TestProject) {
+export async function startBuiltServer(dataDir: string, extraEnv: Record<string, string> = {}): Promise<{ server: ChildProcess; baseUrl: string; output: () => string; stop: () => Promise<void> }> {
   if (!existsSync(ENTRY)) throw new Error(`${ENTRY} is missing: run "npm run build" before the API and browser tests.`);
-  const dataDir = mkdtempSync(path.join(tmpdir(), 'gullyline-test-'));
   const port = await freePort();
   const baseUrl = `http://127.0.0.1:${port}`;
   const server: ChildProcess = spawn(process.execPath, [ENTRY], {
@@ -44,12 +43,20 @@ export default async function setup(project: TestProject) {
       DATABASE_URL: '',
       AUTH_SECRET: 'test-secret-that-is-long-enough-for-authjs-0123456789',
       SIGN_IN_MAX_FAILURES_PER_IP: '200',
+      // Above what any one test account makes in a minute; tests/api/limits.test.ts goes past it.
+      EXPENSIVE_REQUESTS_PER_MINUTE: '60',
+      ...extraEnv,
     },
     stdio: ['ignore', 'pipe', 'pipe'],
   });
   let output = '';
   server.stdout?.on('data', (chunk: Buffer) => (output += chunk.toString()));
   server.stderr?.on('data', (chunk: Buffer) => (output += chunk.toString()));
+  const stop = async () => {
+    if (server.exitCode !== null) return;
+    server.kill('SIGTERM');
+    await new Promise((resolve) => server.once('exit', resolve));
+  };
 
   const deadline = Date.now() + 30_000;
   for (;;) {
@@ -64,13 +71,22 @@ export default async function setup(project: TestProject) {
     }
     await new Promise((resolve) => setTimeout(resolve, 200));
   }
+  return { server, baseUrl, output: () => output, stop };
+}
+
+/**
+ * Starts the built server once per suite, in production mode, with a fresh data folder (its own
+ * SQLite file) so the tests exercise exactly what ships.
+ */
+export default async function setup(project: TestProject) {
+  const dataDir = mkdtempSync(path.join(tmpdir(), 'gullyline-test-'));
+  const { baseUrl, output, stop } = await startBuiltServer(dataDir);
   project.provide('baseUrl', baseUrl);
   project.provide('dataDir', dataDir);
 
   return async () => {
-    server.kill('SIGTERM');
-    await new Promise((resolve) => server.once('exit', resolve));
-    if (process.env.KEEP_TEST_DATA) console.log(`Test data kept in ${dataDir}\nServer output:\n${output}`);
+    await stop();
+    if (process.env.KEEP_TEST_DATA) console.log(`Test data kept in ${dataDir}\nServer output:\n${output()}`);
     else rmSync(dataDir, { recursive: true, force: true });
   };
 }

@@ -1,6 +1,6 @@
 import { kml } from '@tmcw/togeojson';
 import { z, type ZodError } from 'zod';
-import { fenceLineInputSchema, type FenceLineInput } from '../schemas/plan';
+import { fenceLineSchemas, type FenceLineInput } from '../schemas/plan';
 import { ImportError, parseXml } from './import-lines';
 import { PLAN_EXPORT_FORMAT_VERSION } from './plan-data';
 
@@ -52,11 +52,13 @@ const collectionSchema = z.object({
  * the map; heights are dropped.
  *
  * @param text - the file's text
+ * @param options.maxFenceVertices - most vertices in one fence line (default the schema's)
  * @throws ImportError with a message a person can act on: an empty file, text that is neither
  *   JSON nor XML, JSON that is not a FeatureCollection, XML that is not KML, a file with no fence
  *   lines or paddocks, or a fence line or paddock that fails its checks (named, with the reason)
  */
-export function importPlan(text: string): ImportedPlan {
+export function importPlan(text: string, options: { maxFenceVertices?: number } = {}): ImportedPlan {
+  const fenceLineInputSchema = fenceLineSchemas(options.maxFenceVertices).input;
   const body = text.replace(/^\uFEFF/, '').trim();
   if (!body) throw new ImportError('The file is empty. Choose the plan.geojson or plan.kml file exported from Gullyline.');
   const format = body.startsWith('<') ? 'kml' : body.startsWith('{') || body.startsWith('[') ? 'geojson' : null;

@@ -19,20 +19,28 @@ const lonLat = z.tuple([
   z.number().min(-90, 'Latitudes lie between -90 and 90.').max(90, 'Latitudes lie between -90 and 90.'),
 ]);
 
+/** Most vertices in one fence line unless the server's MAX_FENCE_VERTICES says otherwise. */
 export const MAX_FENCE_VERTICES = 5000;
 
-export const fenceLineInputSchema = z.object({
-  name: z.string().trim().min(1, 'Give the fence line a name.').max(120, 'Keep the name under 120 characters.'),
-  status: z.enum(FENCE_STATUSES).default('planned'),
-  coordinates: z
-    .array(lonLat, { required_error: 'Give the fence line as [[lon, lat], …].' })
-    .min(2, 'A fence line needs at least two points.')
-    .max(MAX_FENCE_VERTICES, `Keep a fence line under ${MAX_FENCE_VERTICES} points.`),
-  wireSpec: wireSpecSchema.default({}),
-});
+/** The schemas of a new fence line and of a change to one, for a given vertex limit. */
+export function fenceLineSchemas(maxVertices: number = MAX_FENCE_VERTICES) {
+  const input = z.object({
+    name: z.string().trim().min(1, 'Give the fence line a name.').max(120, 'Keep the name under 120 characters.'),
+    status: z.enum(FENCE_STATUSES).default('planned'),
+    coordinates: z
+      .array(lonLat, { required_error: 'Give the fence line as [[lon, lat], …].' })
+      .min(2, 'A fence line needs at least two points.')
+      .max(maxVertices, `Keep a fence line under ${maxVertices} points.`),
+    wireSpec: wireSpecSchema.default({}),
+  });
+  return { input, update: input.partial().extend({ version: z.number().int().positive() }) };
+}
+
+const defaultSchemas = fenceLineSchemas();
+export const fenceLineInputSchema = defaultSchemas.input;
 export type FenceLineInput = z.infer<typeof fenceLineInputSchema>;
 
-export const fenceLineUpdateSchema = fenceLineInputSchema.partial().extend({ version: z.number().int().positive() });
+export const fenceLineUpdateSchema = defaultSchemas.update;
 
 export type FenceLine = {
   id: number;

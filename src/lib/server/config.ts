@@ -3,6 +3,7 @@ import { existsSync, mkdirSync, readFileSync, writeFileSync } from 'node:fs';
 import path from 'node:path';
 import { config as loadDotenv } from 'dotenv';
 import { z } from 'zod';
+import { MAX_FENCE_VERTICES } from '../schemas/plan';
 
 /**
  * The app's configuration, read once from the environment (and `.env` when present).
@@ -17,6 +18,9 @@ const schema = z.object({
   MAX_JSON_BODY_BYTES: z.coerce.number().int().positive().default(256 * 1024),
   MAX_UPLOAD_BYTES: z.coerce.number().int().positive().default(1024 * 1024 * 1024),
   MAX_RASTER_CELLS: z.coerce.number().int().positive().default(64_000_000),
+  MAX_FENCE_VERTICES: z.coerce.number().int().min(2).default(MAX_FENCE_VERTICES),
+  MAX_FENCE_LINES_PER_PROPERTY: z.coerce.number().int().positive().default(5000),
+  EXPENSIVE_REQUESTS_PER_MINUTE: z.coerce.number().int().positive().default(30),
   SIGN_IN_MAX_FAILURES_PER_EMAIL: z.coerce.number().int().positive().default(5),
   SIGN_IN_MAX_FAILURES_PER_IP: z.coerce.number().int().positive().default(20),
   SIGN_IN_WINDOW_MINUTES: z.coerce.number().positive().default(15),
@@ -33,6 +37,10 @@ export type AppConfig = {
   maxJsonBodyBytes: number;
   maxUploadBytes: number;
   maxRasterCells: number;
+  maxFenceVertices: number;
+  maxFenceLinesPerProperty: number;
+  /** Per user, per minute, on the routes listed in `request-limit.ts`. */
+  expensiveRequestsPerMinute: number;
   signIn: { maxFailuresPerEmail: number; maxFailuresPerIp: number; windowMs: number };
   smtpUrl: string | undefined;
   mailFrom: string;
@@ -44,14 +52,20 @@ let cached: AppConfig | undefined;
 export function getConfig(): AppConfig {
   if (cached) return cached;
   loadDotenv({ quiet: true });
-  const parsed = schema.safeParse(process.env);
+  cached = parseConfig(process.env);
+  return cached;
+}
+
+/** Checks a set of environment variables; exported for tests (the app calls {@link getConfig}). */
+export function parseConfig(variables: Record<string, string | undefined>): AppConfig {
+  const parsed = schema.safeParse(variables);
   if (!parsed.success) {
     const problems = parsed.error.issues.map((issue) => `${issue.path.join('.')}: ${issue.message}`);
     throw new Error(`Gullyline configuration is invalid:\n  ${problems.join('\n  ')}`);
   }
   const env = parsed.data;
   const dataDir = path.resolve(env.DATA_DIR);
-  cached = {
+  return {
     env: env.NODE_ENV,
     dataDir,
     databaseFile: resolveDatabaseFile(env.DATABASE_URL, dataDir),
@@ -60,6 +74,9 @@ export function getConfig(): AppConfig {
     maxJsonBodyBytes: env.MAX_JSON_BODY_BYTES,
     maxUploadBytes: env.MAX_UPLOAD_BYTES,
     maxRasterCells: env.MAX_RASTER_CELLS,
+    maxFenceVertices: env.MAX_FENCE_VERTICES,
+    maxFenceLinesPerProperty: env.MAX_FENCE_LINES_PER_PROPERTY,
+    expensiveRequestsPerMinute: env.EXPENSIVE_REQUESTS_PER_MINUTE,
     signIn: {
       maxFailuresPerEmail: env.SIGN_IN_MAX_FAILURES_PER_EMAIL,
       maxFailuresPerIp: env.SIGN_IN_MAX_FAILURES_PER_IP,
@@ -68,7 +85,6 @@ export function getConfig(): AppConfig {
     smtpUrl: env.SMTP_URL,
     mailFrom: env.MAIL_FROM,
   };
-  return cached;
 }
 
 /** `DATABASE_URL` may be `file:./path.sqlite`, `sqlite:path` or a bare path; default `DATA_DIR/gullyline.sqlite`. */

@@ -2,9 +2,10 @@ import { ImportError } from '../geo/import-lines';
 import { importPlan, type ImportedPlan } from '../geo/import-plan';
 import { analyseCrossings } from './crossings/analyse-crossings';
 import { db } from './db';
-import { DomainError, readTextWithin, ValidationError } from './http';
+import { getConfig } from './config';
+import { ConflictError, DomainError, readTextWithin, ValidationError } from './http';
 import { recordAudit } from './repos/audit-log';
-import { createFenceLine } from './repos/fence-lines';
+import { checkRoomForFenceLines, createFenceLine } from './repos/fence-lines';
 import { createPaddocks } from './repos/paddocks';
 
 /** Largest plan file taken, bytes. */
@@ -18,7 +19,8 @@ const refuse = (message: string) => new DomainError(422, message, { file: messag
  * nothing, and the new fence lines' crossings are then found and designed. Crossings and layout
  * points in the file are not read; they are worked out again here.
  *
- * @throws DomainError 422 with the reason when the file cannot be used (nothing is stored), 413
+ * @throws DomainError 422 with the reason when the file cannot be used or holds more fence lines
+ *   than the property has room for (nothing is stored), 413
  *   past {@link MAX_PLAN_FILE_BYTES}
  */
 export async function importPlanFile(propertyId: number, userId: number, fileName: string, request: Request) {
@@ -26,12 +28,18 @@ export async function importPlanFile(propertyId: number, userId: number, fileNam
   const text = await readTextWithin(request, MAX_PLAN_FILE_BYTES);
   let plan: ImportedPlan;
   try {
-    plan = importPlan(text);
+    plan = importPlan(text, { maxFenceVertices: getConfig().maxFenceVertices });
   } catch (error) {
     if (error instanceof ImportError) throw refuse(error.message);
     throw error;
   }
   const stored = await db().transaction(async (trx) => {
+    try {
+      await checkRoomForFenceLines(propertyId, plan.fenceLines.length, trx);
+    } catch (error) {
+      if (error instanceof ConflictError) throw refuse(`Nothing was imported: ${error.message}`);
+      throw error;
+    }
     const fenceLineIds: number[] = [];
     for (const [index, input] of plan.fenceLines.entries()) {
       try {

@@ -1,6 +1,7 @@
 /**
- * Counts failures per key inside a sliding window and locks a key that reaches the limit until
- * its oldest failure leaves the window. Kept in memory: one server process holds the counts.
+ * Counts failures (or any events) per key inside a sliding window and locks a key that reaches
+ * the limit until its oldest event leaves the window. Kept in memory: one server process holds
+ * the counts. Sign-in counts failed attempts; expensive routes count every request ({@link take}).
  */
 export class FailureLimiter {
   private readonly failures = new Map<string, number[]>();
@@ -22,6 +23,16 @@ export class FailureLimiter {
     const recent = this.recent(key);
     recent.push(this.now());
     this.failures.set(key, recent);
+  }
+
+  /**
+   * Counts one event for `key` when it is not locked.
+   * @returns 0 when the event was counted, otherwise the seconds until `key` may try again
+   */
+  take(key: string): number {
+    const waitS = this.retryAfterS(key);
+    if (waitS === 0) this.recordFailure(key);
+    return waitS;
   }
 
   reset(key: string): void {

@@ -10,7 +10,10 @@ export interface Catchment {
   readonly cellCount: number;
   /** Plan area, m² (per-row cell sizes). */
   readonly areaM2: number;
-  /** Outline as GeoJSON MultiPolygon coordinates in the grid's CRS (along cell edges, corners cut). */
+  /**
+   * Outline as GeoJSON MultiPolygon coordinates in the grid's CRS (along cell edges, corners cut);
+   * empty when asked for without it (`outline: false`).
+   */
   readonly polygon: [number, number][][][];
   /** Longest flow path to the outlet, metres, and its vertices from its top down, CRS `[x, y]`. */
   readonly longestFlowPathM: number;
@@ -35,6 +38,8 @@ export interface Catchment {
  * @param transform - the grid's georeferencing
  * @param point - `[x, y]` in the grid's CRS
  * @param snapRadiusM - search radius in metres (0: the cell under the point)
+ * @param options.outline - trace the outline polygon (default true); the figures alone, for a
+ *   crossing's flood estimate, are much cheaper without it
  * @returns the catchment, or null when no valid cell lies within the radius
  * @throws RangeError on mismatched shapes or a negative radius
  */
@@ -46,6 +51,7 @@ export function delineateCatchment(
   transform: GridTransform,
   point: [number, number],
   snapRadiusM: number,
+  options: { outline?: boolean } = {},
 ): Catchment | null {
   checkElevationGrid(grid);
   checkGridTransform(transform);
@@ -110,7 +116,7 @@ export function delineateCatchment(
     outlet: { col: outletCol, row: outletRow, x, y, elevationM: outletZ },
     cellCount: order.length,
     areaM2,
-    polygon: outlineMask(inside, width, height, transform),
+    polygon: options.outline === false ? [] : outlineMask(inside, width, height, transform),
     longestFlowPathM: lengthM,
     longestFlowPath: pathCells.map((cell) => cellCentre(transform, cell % width, Math.floor(cell / width))),
     equalAreaSlope: lengthM > 0 ? Math.max(0, (2 * areaUnder) / (lengthM * lengthM)) : 0,

@@ -25,3 +25,18 @@ describe('FailureLimiter', () => {
     expect(limiter.retryAfterS('a')).toBe(0);
   });
 });
+
+describe('FailureLimiter.take (requests per minute)', () => {
+  it('lets through the limit, then gives the wait until the oldest request leaves the minute', () => {
+    let now = 0;
+    const limiter = new FailureLimiter(3, 60_000, () => now);
+    expect([limiter.take('user:1'), limiter.take('user:1'), limiter.take('user:1')]).toEqual([0, 0, 0]);
+    now = 15_000;
+    expect(limiter.take('user:1')).toBe(45);
+    expect(limiter.take('user:2')).toBe(0);
+    now = 60_001;
+    expect(limiter.take('user:1')).toBe(0);
+    // A refused request does not count: only the three earlier ones and this one are in the window.
+    expect(limiter.take('user:1')).toBe(0);
+  });
+});

@@ -30,6 +30,16 @@ describe('delineateCatchment', () => {
     expect(Math.max(...xs)).toBeLessThanOrEqual(500_040);
   });
 
+  it('gives the same figures without the outline, and no outline', () => {
+    const grid = gridFromFunction(21, 30, (col, row) => 0.3 * Math.abs(col - 10) + 0.05 * (29 - row), 10);
+    const { filled, directions, accumulation } = prepare(grid);
+    const point: [number, number] = [500_000 + 105, 6_000_000 - 255];
+    const full = delineateCatchment(grid, filled, directions, accumulation, transform, point, 20)!;
+    const figures = delineateCatchment(grid, filled, directions, accumulation, transform, point, 20, { outline: false })!;
+    expect(full.polygon.length).toBeGreaterThan(0);
+    expect(figures).toEqual({ ...full, polygon: [] });
+  });
+
   it('snaps a point beside a channel to the channel within the search radius', () => {
     const grid = gridFromFunction(21, 30, (col, row) => 0.3 * Math.abs(col - 10) + 0.05 * (29 - row), 10);
     const { filled, directions, accumulation } = prepare(grid);

@@ -7,7 +7,7 @@ import { db } from '../db';
 import { NotFoundError } from '../http';
 import { listFenceLines } from '../repos/fence-lines';
 import { getPropertySettings } from '../repos/property-settings';
-import { catchmentAt, profileAlong } from '../terrain/terrain-queries';
+import { catchmentFiguresAt, profileAlong } from '../terrain/terrain-queries';
 import { positionsOfLayout, type LayoutPositions } from '../../crossings/layout-positions';
 
 type DrainageRow = { id: number; property_id: number; geometry: string; stream_order: number; upstream_area_start_m2: number; upstream_area_end_m2: number; mean_slope: number };
@@ -169,7 +169,7 @@ async function designAt(
   }
   // A little wider than the section's half-width, so the section is never cut short by the window.
   const window = profile.samples.filter((s) => Math.abs(s.chainageM - nearest.chainageM) <= settings.profileHalfWidthM + 5);
-  const catchment = await catchmentAt(propertyId, crossing.position, 30).catch(() => null);
+  const catchment = await catchmentFiguresAt(propertyId, crossing.position, 30).catch(() => null);
   const design = designCrossing({
     profile: window.map(({ chainageM, elevationM }) => ({ chainageM, elevationM })),
     crossingChainageM: nearest.chainageM,

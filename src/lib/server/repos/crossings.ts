@@ -44,9 +44,16 @@ export type CrossingSummary = {
   computedAt: string | null;
 };
 
-function rowToSummary(row: CrossingRow, design: Record<string, unknown> | null): CrossingSummary {
+/** The few design figures a summary shows. */
+type DesignFigures = { provisional: boolean; style: string | null; floodLevelM: number | null; floodgateLengthM: number | null };
+
+function figuresOf(design: Record<string, unknown> | null): DesignFigures {
   const layout = design?.layout as { style?: string; floodgate?: { lengthM?: number } } | undefined;
   const floods = design?.floods as { levelM?: number | null } | undefined;
+  return { provisional: Boolean(design?.provisional), style: layout?.style ?? null, floodLevelM: floods?.levelM ?? null, floodgateLengthM: layout?.floodgate?.lengthM ?? null };
+}
+
+function rowToSummary(row: Omit<CrossingRow, 'inputs' | 'design'>, figures: DesignFigures): CrossingSummary {
   return {
     id: row.id,
     fenceLineId: row.fence_line_id,
@@ -60,10 +67,7 @@ function rowToSummary(row: CrossingRow, design: Record<string, unknown> | null):
     upstreamAreaHa: row.upstream_area_m2 === null ? null : row.upstream_area_m2 / 10_000,
     streamOrder: row.stream_order,
     designStatus: row.design_status,
-    provisional: Boolean(design?.provisional),
-    style: layout?.style ?? null,
-    floodLevelM: floods?.levelM ?? null,
-    floodgateLengthM: layout?.floodgate?.lengthM ?? null,
+    ...figures,
     computedAt: row.computed_at,
   };
 }
@@ -71,9 +75,28 @@ function rowToSummary(row: CrossingRow, design: Record<string, unknown> | null):
 const selectRows = (trx: Knex) =>
   trx<CrossingRow>('crossings as c').join('fence_lines as f', 'f.id', 'c.fence_line_id').select('c.*', 'f.name as fence_name');
 
+type SummaryRow = Omit<CrossingRow, 'inputs' | 'design'> & { provisional: number | null; style: string | null; flood_level_m: number | null; floodgate_length_m: number | null };
+
+/**
+ * Every crossing of a property as the list and the map show it. Only the four design figures a
+ * summary needs are read (by SQLite), not the whole design with its profile.
+ */
 export async function listCrossings(propertyId: number, trx: Knex = db()): Promise<CrossingSummary[]> {
-  const rows = await selectRows(trx).where('c.property_id', propertyId).orderBy([{ column: 'c.fence_line_id' }, { column: 'c.chainage_m' }]);
-  return rows.map((row) => rowToSummary(row, row.design ? (JSON.parse(row.design) as Record<string, unknown>) : null));
+  const rows: SummaryRow[] = await trx('crossings as c')
+    .join('fence_lines as f', 'f.id', 'c.fence_line_id')
+    .select(
+      ...['id', 'property_id', 'fence_line_id', 'drainage_line_id', 'kind', 'lon', 'lat', 'chainage_m', 'angle_deg', 'angle_class', 'upstream_area_m2', 'stream_order', 'design_status', 'computed_at'].map((column) => `c.${column}`),
+      'f.name as fence_name',
+      trx.raw("json_extract(c.design, '$.provisional') as provisional"),
+      trx.raw("json_extract(c.design, '$.layout.style') as style"),
+      trx.raw("json_extract(c.design, '$.floods.levelM') as flood_level_m"),
+      trx.raw("json_extract(c.design, '$.layout.floodgate.lengthM') as floodgate_length_m"),
+    )
+    .where('c.property_id', propertyId)
+    .orderBy([{ column: 'c.fence_line_id' }, { column: 'c.chainage_m' }]);
+  return rows.map((row) =>
+    rowToSummary(row, { provisional: Boolean(row.provisional), style: row.style, floodLevelM: row.flood_level_m, floodgateLengthM: row.floodgate_length_m }),
+  );
 }
 
 /** Every crossing of a property with its stored design (null before one is made), by fence line then chainage. */
@@ -81,7 +104,7 @@ export async function listCrossingsWithDesigns(propertyId: number, trx: Knex = d
   const rows = await selectRows(trx).where('c.property_id', propertyId).orderBy([{ column: 'c.fence_line_id' }, { column: 'c.chainage_m' }]);
   return rows.map((row) => {
     const design = row.design ? (JSON.parse(row.design) as Record<string, unknown>) : null;
-    return { ...rowToSummary(row, design), design };
+    return { ...rowToSummary(row, figuresOf(design)), design };
   });
 }
 
@@ -90,7 +113,7 @@ export async function getCrossing(propertyId: number, id: number, trx: Knex = db
   const row = await selectRows(trx).where({ 'c.id': id, 'c.property_id': propertyId }).first();
   if (!row) throw new NotFoundError('crossing');
   const design = row.design ? (JSON.parse(row.design) as Record<string, unknown>) : null;
-  return { ...rowToSummary(row, design), inputs: JSON.parse(row.inputs) as CrossingInputs, design };
+  return { ...rowToSummary(row, figuresOf(design)), inputs: JSON.parse(row.inputs) as CrossingInputs, design };
 }
 
 export async function setCrossingInputs(propertyId: number, id: number, inputs: CrossingInputs, trx: Knex = db()): Promise<{ fenceLineId: number }> {

@@ -1,7 +1,8 @@
 import type { Knex } from 'knex';
 import { boundsOf, lineLengthM } from '../../geo/measure';
-import { fenceLineInputSchema, type FenceLine, type FenceLineInput, type FenceStatus, type WireSpec } from '../../schemas/plan';
+import { fenceLineSchemas, type FenceLine, type FenceLineInput, type FenceStatus, type WireSpec } from '../../schemas/plan';
 import { checkFenceLine, cleanFenceLine } from '../../crossings/geometry/fence-checks';
+import { getConfig } from '../config';
 import { db } from '../db';
 import { ConflictError, NotFoundError, ValidationError } from '../http';
 import { recordAudit } from './audit-log';
@@ -66,8 +67,34 @@ export async function getFenceLine(propertyId: number, id: number, trx: Knex = d
   return rowToFence(row);
 }
 
+/** The fence line schemas with the server's vertex limit (MAX_FENCE_VERTICES). */
+export function serverFenceLineSchemas() {
+  const maxVertices = getConfig().maxFenceVertices;
+  if (schemas?.maxVertices !== maxVertices) schemas = { maxVertices, ...fenceLineSchemas(maxVertices) };
+  return schemas;
+}
+let schemas: (ReturnType<typeof fenceLineSchemas> & { maxVertices: number }) | undefined;
+
+/**
+ * Refuses adding `adding` fence lines to a property that would then hold more than
+ * MAX_FENCE_LINES_PER_PROPERTY.
+ * @throws ConflictError (409) saying how many there are and what to do
+ */
+export async function checkRoomForFenceLines(propertyId: number, adding: number, trx: Knex = db()): Promise<void> {
+  const max = getConfig().maxFenceLinesPerProperty;
+  const [row] = await trx('fence_lines').where({ property_id: propertyId }).count<{ n: number }[]>({ n: '*' });
+  const count = Number(row?.n ?? 0);
+  if (count + adding <= max) return;
+  const what = adding === 1 ? 'another fence line' : `${adding} fence lines`;
+  throw new ConflictError(
+    `This property has ${count} fence line${count === 1 ? '' : 's'} and holds at most ${max}, so ${what} cannot be added. Delete fence lines that are no longer needed (retired ones, for example) and try again.`,
+  );
+}
+
+/** @throws ConflictError when the property already holds MAX_FENCE_LINES_PER_PROPERTY fence lines */
 export async function createFenceLine(propertyId: number, input: FenceLineInput, userId: number | null, trx?: Knex): Promise<FenceLine> {
   const write = async (t: Knex) => {
+    await checkRoomForFenceLines(propertyId, 1, t);
     const now = new Date().toISOString();
     const [row] = await t<FenceRow>('fence_lines')
       .insert({
@@ -103,7 +130,7 @@ export async function updateFenceLine(
     if (current.version !== changes.version) {
       throw new ConflictError(`Someone changed "${current.name}" since you opened it (now version ${current.version}). Reload it to see their change, then edit again.`);
     }
-    const merged = fenceLineInputSchema.parse({ ...current, ...changes });
+    const merged = serverFenceLineSchemas().input.parse({ ...current, ...changes });
     await trx('fence_lines')
       .where({ id, property_id: propertyId, version: changes.version })
       .update({

@@ -58,14 +58,36 @@ export async function elevationAt(propertyId: number, lonLat: [number, number]):
   return { elevationM: null, modelId: finest?.modelId ?? null, cellSizeM: finest?.cellSizeM ?? null };
 }
 
-/** The catchment draining to a point (snapped to the channel within `snapM`), in WGS84, with the figures flood formulas need. */
-export async function catchmentAt(propertyId: number, lonLat: [number, number], snapM: number) {
+/**
+ * The figures of the catchment draining to a point (snapped to the channel within `snapM`) that
+ * flood formulas need, without tracing its outline (a crossing's design needs only these).
+ */
+export async function catchmentFiguresAt(propertyId: number, lonLat: [number, number], snapM: number) {
+  const { covering, catchment, toWgs84 } = await delineateAt(propertyId, lonLat, snapM, false);
+  return {
+    elevationModelId: covering.modelId,
+    terrainRunId: covering.runId,
+    outlet: roundLonLat(toWgs84([catchment.outlet.x, catchment.outlet.y])),
+    areaHa: catchment.areaM2 / 10_000,
+    areaKm2: catchment.areaM2 / 1_000_000,
+    longestFlowPathM: catchment.longestFlowPathM,
+    equalAreaSlopeMPerKm: catchment.equalAreaSlope * 1000,
+  };
+}
+
+async function delineateAt(propertyId: number, lonLat: [number, number], snapM: number, outline: boolean) {
   const covering = await modelCovering(propertyId, lonLat);
   const rasters = await loadRunRasters(covering.runId, covering.crs);
   const toWgs84 = createToWgs84(rasters.crs.proj4);
   const point = createFromWgs84(rasters.crs.proj4)(lonLat);
-  const catchment = delineateCatchment(rasters.grid, rasters.filled, rasters.directions, rasters.accumulation, rasters.transform, point, snapM);
+  const catchment = delineateCatchment(rasters.grid, rasters.filled, rasters.directions, rasters.accumulation, rasters.transform, point, snapM, { outline });
   if (!catchment) throw new NotFoundError('catchment', 'This place lies outside the elevation model or on nodata.');
+  return { covering, catchment, toWgs84 };
+}
+
+/** The catchment draining to a point (snapped to the channel within `snapM`), in WGS84, with the figures flood formulas need. */
+export async function catchmentAt(propertyId: number, lonLat: [number, number], snapM: number) {
+  const { covering, catchment, toWgs84 } = await delineateAt(propertyId, lonLat, snapM, true);
   return {
     elevationModelId: covering.modelId,
     terrainRunId: covering.runId,

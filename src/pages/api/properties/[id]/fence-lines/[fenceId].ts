@@ -1,9 +1,8 @@
 import type { APIRoute } from 'astro';
-import { fenceLineUpdateSchema } from '../../../../../lib/schemas/plan';
 import { requireRole } from '../../../../../lib/server/auth';
 import { parseId, readJson } from '../../../../../lib/server/http';
 import { analyseCrossings } from '../../../../../lib/server/crossings/analyse-crossings';
-import { deleteFenceLine, getFenceLine, updateFenceLine } from '../../../../../lib/server/repos/fence-lines';
+import { deleteFenceLine, getFenceLine, serverFenceLineSchemas, updateFenceLine } from '../../../../../lib/server/repos/fence-lines';
 
 export const GET: APIRoute = async ({ locals, params }) => {
   const { propertyId } = await requireRole(locals, params.id, 'viewer');
@@ -13,7 +12,7 @@ export const GET: APIRoute = async ({ locals, params }) => {
 /** Changes a fence line; send the `version` you read (409 when someone changed it meanwhile). */
 export const PATCH: APIRoute = async ({ locals, params, request }) => {
   const { propertyId, user } = await requireRole(locals, params.id, 'manager');
-  const changes = await readJson(request, fenceLineUpdateSchema);
+  const changes = await readJson(request, serverFenceLineSchemas().update);
   const fenceLine = await updateFenceLine(propertyId, parseId(params.fenceId, 'fence line'), changes, user.id);
   await analyseCrossings(propertyId, [fenceLine.id]);
   return Response.json({ fenceLine });

@@ -1,9 +1,8 @@
 import type { APIRoute } from 'astro';
-import { fenceLineInputSchema } from '../../../../../lib/schemas/plan';
 import { requireRole } from '../../../../../lib/server/auth';
 import { readJson } from '../../../../../lib/server/http';
 import { analyseCrossings } from '../../../../../lib/server/crossings/analyse-crossings';
-import { createFenceLine, listFenceLines } from '../../../../../lib/server/repos/fence-lines';
+import { createFenceLine, listFenceLines, serverFenceLineSchemas } from '../../../../../lib/server/repos/fence-lines';
 
 export const GET: APIRoute = async ({ locals, params }) => {
   const { propertyId } = await requireRole(locals, params.id, 'viewer');
@@ -12,7 +11,7 @@ export const GET: APIRoute = async ({ locals, params }) => {
 
 export const POST: APIRoute = async ({ locals, params, request }) => {
   const { propertyId, user } = await requireRole(locals, params.id, 'manager');
-  const input = await readJson(request, fenceLineInputSchema);
+  const input = await readJson(request, serverFenceLineSchemas().input);
   const fenceLine = await createFenceLine(propertyId, input, user.id);
   await analyseCrossings(propertyId, [fenceLine.id]);
   return Response.json({ fenceLine }, { status: 201 });
