@@ -44,8 +44,8 @@ function normaliseHeader(name: string): string {
   return name.toLowerCase().replace(/[^a-z]/g, '');
 }
 
-/** Dollars as typed in a spreadsheet ("12.5", "$1,250.00") to whole cents, or why not. */
-function parseDollars(text: string): { cents: number } | { problem: string } {
+/** Dollars as typed in a spreadsheet or a form ("12.5", "$1,250.00") to whole cents, or why not. */
+export function parseDollars(text: string): { cents: number } | { problem: string } {
   const cleaned = text.trim().replace(/^\$\s*/, '').replace(/^(-?)\$\s*/, '$1');
   if (cleaned === '') return { problem: 'The unit price is missing.' };
   const plain = /^-?\d{1,3}(,\d{3})+(\.\d*)?$/.test(cleaned) ? cleaned.replace(/,/g, '') : cleaned;
@@ -129,9 +129,9 @@ export function parsePriceListCsv(text: string): PriceCsvResult {
  * Applies imported items to a price list. `replace`: the imported items become the list.
  * `merge`: an imported item with the id and unit of an existing one changes its name, price and
  * note in place; the others are added at the end; items the file does not mention stay.
- * Neither list is modified.
+ * Neither list is modified. Works on any rows with an id and a unit (the page merges its edited rows).
  */
-export function applyImportedPrices(current: readonly PriceListItem[], imported: readonly PriceListItem[], mode: 'replace' | 'merge'): PriceListItem[] {
+export function applyImportedPrices<T extends { code: string; unit: string }>(current: readonly T[], imported: readonly T[], mode: 'replace' | 'merge'): T[] {
   if (mode === 'replace') return imported.map((item) => ({ ...item }));
   const byKey = new Map(imported.map((item) => [priceKey(item), item]));
   const merged = current.map((item) => ({ ...(byKey.get(priceKey(item)) ?? item) }));
