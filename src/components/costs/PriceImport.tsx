@@ -5,17 +5,33 @@ import { formatAud } from './price-draft';
 
 const MAX_FILE_BYTES = 1_000_000;
 
-type Props = { disabled: boolean; onApply: (items: PriceListItem[], mode: 'merge' | 'replace') => void };
+type Props = {
+  disabled: boolean;
+  onApply: (items: PriceListItem[], mode: 'merge' | 'replace') => void;
+};
 
 /** Reads a CSV price list, shows every row and its problems, and applies it only when all rows are sound. */
 export function PriceImport({ disabled, onApply }: Props) {
-  const [preview, setPreview] = useState<{ name: string; result: PriceCsvResult } | null>(null);
+  const [preview, setPreview] = useState<{
+    name: string;
+    result: PriceCsvResult;
+  } | null>(null);
   const [mode, setMode] = useState<'merge' | 'replace'>('merge');
 
   const read = async (file: File | undefined) => {
     if (!file) return;
-    if (file.size > MAX_FILE_BYTES) return setPreview({ name: file.name, result: { ok: false, error: 'The file is larger than 1 MB; a price list is much smaller. Check it is the right file.' } });
-    setPreview({ name: file.name, result: parsePriceListCsv(await file.text()) });
+    if (file.size > MAX_FILE_BYTES)
+      return setPreview({
+        name: file.name,
+        result: {
+          ok: false,
+          error: 'The file is larger than 1 MB; a price list is much smaller. Check it is the right file.',
+        },
+      });
+    setPreview({
+      name: file.name,
+      result: parsePriceListCsv(await file.text()),
+    });
   };
 
   const result = preview?.result;
@@ -23,7 +39,8 @@ export function PriceImport({ disabled, onApply }: Props) {
   const items = result?.ok && bad === 0 ? result.rows.map((r) => r.item!) : null;
 
   return (
-    <div data-testid="price-import">
+    // `contents`: the button sits in the heading's row and the preview takes a full row under it.
+    <div className="contents" data-testid="price-import">
       <label className="btn-quiet cursor-pointer">
         Import CSV…
         <input
@@ -39,7 +56,7 @@ export function PriceImport({ disabled, onApply }: Props) {
         />
       </label>
       {preview && (
-        <div className="mt-4 rounded-lg border border-sand-300 bg-sand-50 p-4" data-testid="import-preview">
+        <div className="mt-2 basis-full rounded-lg border border-sand-300 bg-sand-50 p-4" data-testid="import-preview">
           <h3 className="font-bold">Importing {preview.name}</h3>
           {result && !result.ok ? (
             <p className="alert-error mt-2" role="alert">
@@ -74,9 +91,9 @@ export function PriceImport({ disabled, onApply }: Props) {
                     {result.rows.map((row) => (
                       <tr key={row.row} className={`border-b border-sand-200 align-top ${row.problems.length ? 'bg-clay-100' : ''}`} data-testid="import-row">
                         <td className="py-1 pr-2 tabular-nums">{row.row}</td>
-                        <td className="py-1 pr-2">{row.item ? `${row.item.code} · ${row.item.description}` : '—'}</td>
-                        <td className="py-1 pr-2">{row.item?.unit ?? ''}</td>
-                        <td className="py-1 pr-2 text-right tabular-nums">{row.item ? formatAud(row.item.unitPriceCents) : ''}</td>
+                        <td className="py-1 pr-2">{[row.raw.code || '(no id)', row.raw.description || '(no name)'].join(' · ')}</td>
+                        <td className="py-1 pr-2">{row.item?.unit ?? row.raw.unit}</td>
+                        <td className="py-1 pr-2 text-right tabular-nums">{row.item ? formatAud(row.item.unitPriceCents) : row.raw.price}</td>
                         <td className="py-1 text-clay-600" data-testid="import-problem">
                           {row.problems.join(' ')}
                         </td>

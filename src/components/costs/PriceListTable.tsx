@@ -5,8 +5,20 @@ import type { DraftRow } from './price-draft';
 
 type Editable = 'code' | 'description' | 'unit' | 'price' | 'supplierNote';
 /** The server's field name for each column (its errors are keyed `priceList.<index>.<field>`). */
-const SERVER_FIELD: Record<Editable, string> = { code: 'code', description: 'description', unit: 'unit', price: 'unitPriceCents', supplierNote: 'supplierNote' };
-const LABELS: Record<Editable, string> = { code: 'Item id', description: 'Name', unit: 'Unit', price: 'Unit price (AUD)', supplierNote: 'Supplier note' };
+const SERVER_FIELD: Record<Editable, string> = {
+  code: 'code',
+  description: 'description',
+  unit: 'unit',
+  price: 'unitPriceCents',
+  supplierNote: 'supplierNote',
+};
+const LABELS: Record<Editable, string> = {
+  code: 'Item id',
+  description: 'Name',
+  unit: 'Unit',
+  price: 'Unit price (AUD)',
+  supplierNote: 'Supplier note',
+};
 
 type Props = {
   rows: DraftRow[];
@@ -83,7 +95,12 @@ export function PriceListTable({ rows, canEdit, errors, onChange, onRemove }: Pr
               id: 'remove',
               header: () => <span className="sr-only">Remove</span>,
               cell: (ctx) => (
-                <button type="button" className="btn-quiet min-h-10 px-3" aria-label={`Remove row ${ctx.row.index + 1}`} onClick={() => (ctx.table.options.meta as Meta).onRemove(ctx.row.original.key)}>
+                <button
+                  type="button"
+                  className="btn-quiet min-h-10 px-3"
+                  aria-label={`Remove row ${ctx.row.index + 1}`}
+                  onClick={() => (ctx.table.options.meta as Meta).onRemove(ctx.row.original.key)}
+                >
                   Remove
                 </button>
               ),

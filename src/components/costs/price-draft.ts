@@ -10,7 +10,14 @@ const newKey = () => `row-${++nextKey}`;
 export const formatAud = (cents: number) => new Intl.NumberFormat('en-AU', { style: 'currency', currency: 'AUD' }).format(cents / 100);
 
 export function toDraft(items: readonly PriceListItem[]): DraftRow[] {
-  return items.map((item) => ({ key: newKey(), code: item.code, description: item.description, unit: item.unit, price: (item.unitPriceCents / 100).toFixed(2), supplierNote: item.supplierNote }));
+  return items.map((item) => ({
+    key: newKey(),
+    code: item.code,
+    description: item.description,
+    unit: item.unit,
+    price: (item.unitPriceCents / 100).toFixed(2),
+    supplierNote: item.supplierNote,
+  }));
 }
 
 export function blankRow(): DraftRow {

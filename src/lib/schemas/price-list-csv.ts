@@ -29,6 +29,8 @@ export type PriceCsvRow = {
   row: number;
   item: PriceListItem | null;
   problems: string[];
+  /** The row's cells as written, to show beside its problems. */
+  raw: { code: string; description: string; unit: string; price: string };
 };
 
 /** A parsed file: a file-level error (nothing usable) or its rows. */
@@ -120,7 +122,7 @@ export function parsePriceListCsv(text: string): PriceCsvResult {
       else seen.set(key, row);
     }
     const item = problems.length === 0 && unit && 'cents' in price ? { code, description, unit, unitPriceCents: price.cents, supplierNote } : null;
-    return { row, item, problems };
+    return { row, item, problems, raw: { code, description, unit: unitText, price: cell('price') } };
   });
   return { ok: true, rows, ignoredColumns };
 }

@@ -14,7 +14,9 @@ function rowsOf(result: PriceCsvResult) {
 describe('parsePriceListCsv', () => {
   it('reads a hand-checkable file', () => {
     const rows = rowsOf(parsePriceListCsv('id,name,unit,unit_price_aud,supplier_note\nLINE_POST,Star picket,each,11.50,Bourke depot\n'));
-    expect(rows).toEqual([{ row: 2, problems: [], item: { code: 'LINE_POST', description: 'Star picket', unit: 'each', unitPriceCents: 1150, supplierNote: 'Bourke depot' } }]);
+    expect(rows).toEqual([
+      { row: 2, problems: [], item: { code: 'LINE_POST', description: 'Star picket', unit: 'each', unitPriceCents: 1150, supplierNote: 'Bourke depot' }, raw: { code: 'LINE_POST', description: 'Star picket', unit: 'each', price: '11.50' } },
+    ]);
   });
 
   it.each([
