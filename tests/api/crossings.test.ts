@@ -212,4 +212,28 @@ describe('materials and cost', () => {
     expect(header).toBe('fence_line,code,description,unit,quantity,unit_price,total');
     expect(rows.some((row) => row.startsWith('North cross fence,STRAINER_ASSEMBLY'))).toBe(true);
   });
+
+  it('prices each designed crossing on its own, as a part of its fence line', async () => {
+    type Costs = { fenceLines: { fenceLineId: number; priced: { totalCents: number } }[]; crossings: { crossingId: number; fenceLineId: number; totalCents: number; complete: boolean }[] };
+    const { body } = await manager.json<{ costs: Costs }>('GET', `/api/properties/${propertyId}/costs`);
+    const designed = (await crossings()).filter((f) => f.properties.designStatus === 'designed');
+    const byNumber = (a: number, b: number) => a - b;
+    expect(body.costs.crossings.map((c) => c.crossingId).sort(byNumber)).toEqual(designed.map((f) => f.properties.id).sort(byNumber));
+    for (const crossing of body.costs.crossings) {
+      const fence = body.costs.fenceLines.find((f) => f.fenceLineId === crossing.fenceLineId)!;
+      expect(crossing.complete).toBe(true);
+      expect(crossing.totalCents).toBeGreaterThan(0);
+      expect(crossing.totalCents).toBeLessThan(fence.priced.totalCents);
+    }
+  });
+
+  it('refuses a price list with an id priced twice in one unit, naming the row, and keeps the stored one', async () => {
+    const before = (await manager.json<{ settings: { version: number; priceList: unknown[] } }>('GET', `/api/properties/${propertyId}/settings`)).body.settings;
+    const twice = [...prices.items, { ...(prices.items[0] as object), unitPriceCents: 1 }];
+    const { status, body } = await manager.json<{ fields: Record<string, string> }>('PATCH', `/api/properties/${propertyId}/settings`, { version: before.version, priceList: twice });
+    expect(status).toBe(422);
+    expect(body.fields[`priceList.${prices.items.length}.code`]).toMatch(/already priced on row 1/);
+    const after = (await manager.json<{ settings: { version: number; priceList: unknown[] } }>('GET', `/api/properties/${propertyId}/settings`)).body.settings;
+    expect(after).toEqual(before);
+  });
 });

@@ -6,6 +6,9 @@ import type {
   FenceLinesResponse,
   RealignmentView,
 } from '../schemas/crossing-view';
+import type { CostsView, SettingsView } from '../schemas/costs-view';
+import type { DesignSettings } from '../schemas/crossing';
+import type { PriceListItem } from '../schemas/price-list';
 import type { Paddock, PaddocksFromFencesResult } from '../schemas/paddock';
 import type { FenceLine, FenceLineInput } from '../schemas/plan';
 import type { ElevationAtPoint } from '../schemas/queries';
@@ -105,6 +108,11 @@ export const api = {
     request<PaddocksFromFencesResult>('POST', `/api/properties/${propertyId}/paddocks/from-fences`, fenceLineIds ? { fenceLineIds } : {}),
   deleteTrack: (propertyId: number, trackId: number) => request<void>('DELETE', `/api/properties/${propertyId}/tracks/${trackId}`),
   /** Ground height at a point (throttle it when following the cursor); `elevationM` null off every model. */
+  getSettings: (propertyId: number) => request<SettingsView>('GET', `/api/properties/${propertyId}/settings`),
+  /** Changes the price list and design settings; `version` is the one read (a 409 ApiError when someone changed them meanwhile). */
+  updateSettings: (propertyId: number, changes: { version: number; priceList?: PriceListItem[]; designSettings?: DesignSettings }) =>
+    request<{ settings: SettingsView['settings'] }>('PATCH', `/api/properties/${propertyId}/settings`, changes),
+  getCosts: (propertyId: number) => request<{ costs: CostsView }>('GET', `/api/properties/${propertyId}/costs`),
   elevationAt: (propertyId: number, [lon, lat]: [number, number]) =>
     request<ElevationAtPoint>('GET', `/api/properties/${propertyId}/elevation?${new URLSearchParams({ lon: String(lon), lat: String(lat) })}`),
 };

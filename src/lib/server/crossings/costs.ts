@@ -9,18 +9,34 @@ import { db } from '../db';
 import { listFenceLines } from '../repos/fence-lines';
 import { getPropertySettings } from '../repos/property-settings';
 
+/** What one designed crossing costs on its own (its floodgate footprint), for the chosen style. */
+export type CrossingCost = {
+  crossingId: number;
+  fenceLineId: number;
+  fenceName: string;
+  chainageM: number;
+  style: string | null;
+  materialsCents: number;
+  labourCents: number;
+  totalCents: number;
+  complete: boolean;
+};
+
 export type FenceLineCost = { fenceLineId: number; name: string; status: string; lengthM: number; crossings: number; materials: MaterialsList; priced: PricedMaterials };
 
 /**
  * Materials and cost of each fence line of a property (ordinary fence plus its designed
- * crossings), priced from the property's price list, and the property's totals.
+ * crossings), priced from the property's price list, and the property's totals. Each designed
+ * crossing is also priced on its own (its footprint's materials and labour), which is part of,
+ * not added to, its fence line's cost.
  */
 export async function propertyCosts(propertyId: number) {
   const settings = await getPropertySettings(propertyId);
   const design = { ...DEFAULT_DESIGN_SETTINGS, ...settings.designSettings };
   const labour = { ratePerDayCents: design.labourRatePerDayCents, metresPerDay: design.metresPerDay };
-  const rows = await db()('crossings').where({ property_id: propertyId, design_status: 'designed' }).select('fence_line_id', 'design');
+  const rows = await db()('crossings').where({ property_id: propertyId, design_status: 'designed' }).select('id', 'fence_line_id', 'chainage_m', 'design');
   const fences: FenceLineCost[] = [];
+  const crossings: CrossingCost[] = [];
   for (const fence of await listFenceLines(propertyId)) {
     if (fence.status === 'retired') continue;
     const layouts = rows.filter((row) => row.fence_line_id === fence.id).map((row) => (JSON.parse(row.design) as { layout: FloodgateLayout }).layout);
@@ -38,6 +54,15 @@ export async function propertyCosts(propertyId: number) {
       },
     });
     const priced = priceMaterials({ items: materials.items, fenceLengthM: fence.lengthM, crossingCount: layouts.length }, settings.priceList, labour);
+    for (const row of rows.filter((r) => r.fence_line_id === fence.id)) {
+      const design = JSON.parse(row.design) as { materials?: MaterialsList; layout?: FloodgateLayout };
+      if (!design.materials) continue;
+      const own = priceMaterials(design.materials, settings.priceList, labour);
+      crossings.push({
+        crossingId: row.id, fenceLineId: fence.id, fenceName: fence.name, chainageM: row.chainage_m, style: design.layout?.style ?? null,
+        materialsCents: own.materialsCents, labourCents: own.labour.costCents, totalCents: own.totalCents, complete: own.complete,
+      });
+    }
     fences.push({ fenceLineId: fence.id, name: fence.name, status: fence.status, lengthM: fence.lengthM, crossings: layouts.length, materials, priced });
   }
   const totals = {
@@ -48,7 +73,7 @@ export async function propertyCosts(propertyId: number) {
     totalCents: fences.reduce((sum, f) => sum + f.priced.totalCents, 0),
     complete: fences.every((f) => f.priced.complete),
   };
-  return { fenceLines: fences, totals, priceListItems: settings.priceList.length };
+  return { fenceLines: fences, crossings, totals, priceListItems: settings.priceList.length };
 }
 
 /** The materials of every fence line as CSV (one row per item), for a spreadsheet or a supplier. */

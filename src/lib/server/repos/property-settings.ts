@@ -1,13 +1,13 @@
 import type { Knex } from 'knex';
 import type { IfdTable } from '../../crossings/hydraulics/ifd';
-import type { MaterialUnit } from '../../crossings/materials/material-item';
 import { designSettingsSchema, type DesignSettings, type IfdTableInput } from '../../schemas/crossing';
+import type { PriceListItem } from '../../schemas/price-list';
 import { db } from '../db';
 import { validateIfdTable } from '../../crossings/hydraulics/ifd';
 import { ConflictError, ValidationError } from '../http';
 import { recordAudit } from './audit-log';
 
-export type PriceItem = { code: string; description: string; unit: MaterialUnit; unitPriceCents: number; supplierNote: string };
+export type PriceItem = PriceListItem;
 
 export type PropertySettings = {
   designSettings: DesignSettings;

@@ -1,23 +1,16 @@
 import type { APIRoute } from 'astro';
 import { z } from 'zod';
 import { DEFAULT_DESIGN_SETTINGS, designSettingsSchema, ifdTableSchema } from '../../../../lib/schemas/crossing';
+import { priceListSchema } from '../../../../lib/schemas/price-list';
 import { requireRole } from '../../../../lib/server/auth';
 import { readJson } from '../../../../lib/server/http';
 import { getPropertySettings, updatePropertySettings } from '../../../../lib/server/repos/property-settings';
-
-const priceItemSchema = z.object({
-  code: z.string().trim().min(1).max(60),
-  description: z.string().trim().max(200).default(''),
-  unit: z.enum(['each', 'm', 'roll', 'kg']),
-  unitPriceCents: z.number().int().min(0).max(100_000_000),
-  supplierNote: z.string().trim().max(200).default(''),
-});
 
 const changeSchema = z.object({
   version: z.number().int().min(0),
   designSettings: designSettingsSchema.optional(),
   ifdTable: ifdTableSchema.nullable().optional(),
-  priceList: z.array(priceItemSchema).max(500).optional(),
+  priceList: priceListSchema.optional(),
 });
 
 /** Design settings (with defaults), the IFD table and the price list of the property. */
