@@ -4,6 +4,7 @@ import { createServer } from 'node:net';
 import { tmpdir } from 'node:os';
 import path from 'node:path';
 import type { TestProject } from 'vitest/node';
+import { startMailCatcher } from '../../src/lib/server/mail-catcher';
 
 declare module 'vitest' {
   export interface ProvidedContext {
@@ -33,6 +34,8 @@ export default async function setup(project: TestProject) {
   if (!existsSync(ENTRY)) throw new Error(`${ENTRY} is missing: run "npm run build" before the API and browser tests.`);
   const dataDir = mkdtempSync(path.join(tmpdir(), 'gullyline-test-'));
   const port = await freePort();
+  // The server's e-mail goes to a local catcher that keeps each message in DATA_DIR/mail.
+  const catcher = await startMailCatcher({ dataDir });
   const baseUrl = `http://127.0.0.1:${port}`;
   const server: ChildProcess = spawn(process.execPath, [ENTRY], {
     env: {
@@ -44,6 +47,7 @@ export default async function setup(project: TestProject) {
       DATABASE_URL: '',
       AUTH_SECRET: 'test-secret-that-is-long-enough-for-authjs-0123456789',
       SIGN_IN_MAX_FAILURES_PER_IP: '200',
+      SMTP_URL: catcher.url,
     },
     stdio: ['ignore', 'pipe', 'pipe'],
   });
@@ -60,6 +64,7 @@ export default async function setup(project: TestProject) {
     }
     if (server.exitCode !== null || Date.now() > deadline) {
       server.kill();
+      await catcher.close();
       throw new Error(`The built server did not start:\n${output}`);
     }
     await new Promise((resolve) => setTimeout(resolve, 200));
@@ -70,6 +75,7 @@ export default async function setup(project: TestProject) {
   return async () => {
     server.kill('SIGTERM');
     await new Promise((resolve) => server.once('exit', resolve));
+    await catcher.close();
     if (process.env.KEEP_TEST_DATA) console.log(`Test data kept in ${dataDir}\nServer output:\n${output}`);
     else rmSync(dataDir, { recursive: true, force: true });
   };
