@@ -1,5 +1,5 @@
 import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
-import { useState, type FormEvent } from 'react';
+import { useState } from 'react';
 import { ApiError, api } from '../lib/client/api';
 import type { Invitation } from '../lib/schemas/invitation';
 import { ROLES, type Role } from '../lib/schemas/roles';
@@ -29,7 +29,7 @@ function InvitationsPanel({ propertyId, canInviteOwners, initialInvitations }: P
   const error = invite.error ?? revoke.error;
   const emailProblem = invite.error instanceof ApiError ? invite.error.fields.email : undefined;
 
-  const submit = (event: FormEvent) => {
+  const submit = (event: { preventDefault(): void }) => {
     event.preventDefault();
     setNotice('');
     invite.mutate();

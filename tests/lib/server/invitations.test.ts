@@ -8,8 +8,10 @@ import {
 import { changeRole, findRole } from '../../../src/lib/server/repos/memberships';
 import { createProperty } from '../../../src/lib/server/repos/properties';
 import { createUser } from '../../../src/lib/server/repos/users';
+import type { Role } from '../../../src/lib/schemas/roles';
 
-let owner = { id: 0, name: 'Olive Owner', role: 'owner' as const };
+type Inviter = { id: number; name: string; role: Role };
+let owner: Inviter = { id: 0, name: 'Olive Owner', role: 'owner' };
 let propertyId = 0;
 let counter = 0;
 
@@ -18,7 +20,7 @@ async function person(label: string) {
   return createUser({ email: `${label}-${counter}@invite.example`, name: `${label} ${counter}`, passwordHash: 'hash' });
 }
 
-function invite(email: string, role: 'owner' | 'manager' | 'crew' | 'viewer', by = owner, now?: Date) {
+function invite(email: string, role: Role, by: Inviter = owner, now?: Date) {
   return createInvitation({ propertyId, email, role, invitedBy: by, origin: 'http://127.0.0.1:4321', now });
 }
 
@@ -114,7 +116,7 @@ describe('invitations', () => {
 
   it('never lowers a member’s role, so the last owner stays an owner', async () => {
     const { id } = await createUser({ email: 'solo@invite.example', name: 'Solo', passwordHash: 'h' });
-    const solo = { id, name: 'Solo', role: 'owner' as const };
+    const solo: Inviter = { id, name: 'Solo', role: 'owner' };
     const own = await createProperty({ name: 'Solo Creek', region: '', crs: 'EPSG:7854' }, id);
     // An invitation to an address that becomes the owner's only after it was sent (the owner joined meanwhile).
     const [row] = await db()('invitations')

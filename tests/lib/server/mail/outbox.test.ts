@@ -15,7 +15,7 @@ async function smtpServer(mode: 'accept' | 'refuse'): Promise<{ url: string; rec
     authOptional: true,
     disabledCommands: ['STARTTLS'],
     logger: false,
-    onRcptTo(address, _session, callback) {
+    onRcptTo(_address, _session, callback) {
       if (mode === 'refuse') {
         const error = Object.assign(new Error('Mailbox busy, try again later'), { responseCode: 451 });
         return callback(error);
