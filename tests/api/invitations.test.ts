@@ -126,4 +126,10 @@ describe('invitations', () => {
     expect(Object.keys(badRole.body.fields)).toEqual(['role']);
     expect(await rowCounts('invitations', 'outbox', 'audit_log')).toEqual(before);
   });
+
+  it('keeps the developer mail page closed in production unless it is switched on', async () => {
+    const response = await owner.request('GET', '/dev/mail');
+    expect(response.status).toBe(404);
+    expect(await response.text()).not.toContain('Outbox');
+  });
 });
