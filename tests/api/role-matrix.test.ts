@@ -1,6 +1,7 @@
 // Every API route × every kind of caller → the status the route must answer.
 // The route list is read from src/pages/api on disk, so a new route without an entry here (and
 // so without a decided guard) fails this test, as does an entry for a route that is gone.
+import { createHash, randomBytes } from 'node:crypto';
 import { readdirSync, readFileSync } from 'node:fs';
 import path from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
@@ -8,7 +9,7 @@ import { TestClient, closeServerDb, newAccount, serverDb, signedInClient } from 
 
 const CALLERS = ['anonymous', 'outsider', 'viewer', 'crew', 'manager', 'owner'] as const;
 type Caller = (typeof CALLERS)[number];
-type Context = { propertyId: number; targetUserId: number; elevationModelId: number; runId: number; modelId?: number; fenceId?: number; trackId?: number; crossingId?: number; paddockId?: number };
+type Context = { propertyId: number; targetUserId: number; elevationModelId: number; runId: number; modelId?: number; fenceId?: number; trackId?: number; crossingId?: number; paddockId?: number; invitationId?: number; token?: string };
 type Entry = {
   expect: Record<Caller, number>;
   body?: (context: Context) => Promise<unknown> | unknown;
@@ -93,6 +94,18 @@ async function sparePaddock(context: Context): Promise<Partial<Context>> {
   return { paddockId: row.id };
 }
 
+/** A pending invitation of its own (for an address none of the callers has), for a revoke or an accept. */
+async function spareInvitation(context: Context): Promise<Partial<Context>> {
+  const token = `matrix-${randomBytes(24).toString('base64url')}`;
+  const [row] = await serverDb()('invitations')
+    .insert({
+      property_id: context.propertyId, email: newAccount('invitee').email, role: 'crew', token_hash: createHash('sha256').update(token).digest('hex'),
+      expires_at: new Date(Date.now() + 86_400_000).toISOString(), created_at: new Date().toISOString(),
+    })
+    .returning('id');
+  return { invitationId: row.id, token };
+}
+
 const MANIFEST = JSON.parse(readFileSync('data-samples/saltbush-rise.json', 'utf8')) as { fenceLines: { name: string; pointsLonLat: [number, number][] }[] };
 const fenceNamed = (name: string) => MANIFEST.fenceLines.find((fence) => fence.name === name)!.pointsLonLat;
 
@@ -155,6 +168,11 @@ const MATRIX: Record<string, Entry> = {
   'GET /api/properties/[id]/members': { expect: atLeast('viewer', 200) },
   'PATCH /api/properties/[id]/members/[userId]': { expect: atLeast('owner', 200), body: () => ({ role: 'viewer' }) },
   'DELETE /api/properties/[id]/members/[userId]': { expect: atLeast('owner', 204) },
+  'GET /api/properties/[id]/invitations': { expect: atLeast('manager', 200) },
+  'POST /api/properties/[id]/invitations': { expect: atLeast('manager', 201), body: () => ({ email: newAccount('invited').email, role: 'crew' }) },
+  'DELETE /api/properties/[id]/invitations/[invitationId]': { expect: atLeast('manager', 204), prepare: spareInvitation },
+  // Every signed-in caller holds a link meant for someone else's address: refused, whatever their role.
+  'POST /api/invitations/accept': { expect: everyone(403), prepare: spareInvitation, body: ({ token }) => ({ token }) },
   'GET /api/properties/[id]/drainage-lines': { expect: atLeast('viewer', 200) },
   'GET /api/properties/[id]/catchment': { expect: atLeast('viewer', 200), query: '?lon=141.6455&lat=-31.4395&snapM=40' },
   'POST /api/properties/[id]/profile': { expect: atLeast('viewer', 200), body: () => ({ line: [[141.64, -31.44], [141.65, -31.44]] }) },
@@ -243,7 +261,8 @@ function fill(route: string, context: Context): string {
     .replace('[fenceId]', String(context.fenceId ?? 0))
     .replace('[trackId]', String(context.trackId ?? 0))
     .replace('[crossingId]', String(context.crossingId ?? 0))
-    .replace('[paddockId]', String(context.paddockId ?? 0));
+    .replace('[paddockId]', String(context.paddockId ?? 0))
+    .replace('[invitationId]', String(context.invitationId ?? 0));
 }
 
 const clients = {} as Record<Caller, TestClient>;

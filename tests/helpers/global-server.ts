@@ -4,6 +4,7 @@ import { createServer } from 'node:net';
 import { tmpdir } from 'node:os';
 import path from 'node:path';
 import type { TestProject } from 'vitest/node';
+import { startMailCatcher } from '../../src/lib/server/mail-catcher';
 
 declare module 'vitest' {
   export interface ProvidedContext {
@@ -32,6 +33,8 @@ function freePort(): Promise<number> {
 export async function startBuiltServer(dataDir: string, extraEnv: Record<string, string> = {}): Promise<{ server: ChildProcess; baseUrl: string; output: () => string; stop: () => Promise<void> }> {
   if (!existsSync(ENTRY)) throw new Error(`${ENTRY} is missing: run "npm run build" before the API and browser tests.`);
   const port = await freePort();
+  // The server's e-mail goes to a local catcher that keeps each message in DATA_DIR/mail.
+  const catcher = await startMailCatcher({ dataDir });
   const baseUrl = `http://127.0.0.1:${port}`;
   const server: ChildProcess = spawn(process.execPath, [ENTRY], {
     env: {
@@ -45,6 +48,7 @@ export async function startBuiltServer(dataDir: string, extraEnv: Record<string,
       SIGN_IN_MAX_FAILURES_PER_IP: '200',
       // Above what any one test account makes in a minute; tests/api/limits.test.ts goes past it.
       EXPENSIVE_REQUESTS_PER_MINUTE: '60',
+      SMTP_URL: catcher.url,
       ...extraEnv,
     },
     stdio: ['ignore', 'pipe', 'pipe'],
@@ -53,9 +57,11 @@ export async function startBuiltServer(dataDir: string, extraEnv: Record<string,
   server.stdout?.on('data', (chunk: Buffer) => (output += chunk.toString()));
   server.stderr?.on('data', (chunk: Buffer) => (output += chunk.toString()));
   const stop = async () => {
-    if (server.exitCode !== null) return;
-    server.kill('SIGTERM');
-    await new Promise((resolve) => server.once('exit', resolve));
+    if (server.exitCode === null) {
+      server.kill('SIGTERM');
+      await new Promise((resolve) => server.once('exit', resolve));
+    }
+    await catcher.close();
   };
 
   const deadline = Date.now() + 30_000;
@@ -67,6 +73,7 @@ export async function startBuiltServer(dataDir: string, extraEnv: Record<string,
     }
     if (server.exitCode !== null || Date.now() > deadline) {
       server.kill();
+      await catcher.close();
       throw new Error(`The built server did not start:\n${output}`);
     }
     await new Promise((resolve) => setTimeout(resolve, 200));

@@ -13,6 +13,7 @@ import type { Paddock, PaddocksFromFencesResult } from '../schemas/paddock';
 import type { FenceLine, FenceLineInput } from '../schemas/plan';
 import type { ElevationAtPoint } from '../schemas/queries';
 import type { Track, TrackImportResult } from '../schemas/tracks';
+import type { Invitation } from '../schemas/invitation';
 import type { Member, PropertySummary } from '../schemas/property';
 import type { ElevationModelView, TerrainRun } from '../schemas/terrain';
 
@@ -56,6 +57,14 @@ export const api = {
     request<{ member: Member }>('PATCH', `/api/properties/${propertyId}/members/${userId}`, { role }),
   removeMember: (propertyId: number, userId: number) =>
     request<void>('DELETE', `/api/properties/${propertyId}/members/${userId}`),
+  listInvitations: (propertyId: number) => request<{ invitations: Invitation[] }>('GET', `/api/properties/${propertyId}/invitations`),
+  /** Invites a person by e-mail; the e-mail with the accept link goes out through the outbox. */
+  createInvitation: (propertyId: number, input: { email: string; role: Member['role'] }) =>
+    request<{ invitation: Invitation }>('POST', `/api/properties/${propertyId}/invitations`, input),
+  revokeInvitation: (propertyId: number, invitationId: number) =>
+    request<void>('DELETE', `/api/properties/${propertyId}/invitations/${invitationId}`),
+  acceptInvitation: (token: string) =>
+    request<{ membership: { propertyId: number; role: Member['role'] } }>('POST', '/api/invitations/accept', { token }),
   listElevationModels: (propertyId: number) =>
     request<{ elevationModels: ElevationModelView[] }>('GET', `/api/properties/${propertyId}/elevation-models`),
   getTerrainRun: (propertyId: number, runId: number) =>

@@ -26,6 +26,9 @@ const schema = z.object({
   SIGN_IN_WINDOW_MINUTES: z.coerce.number().positive().default(15),
   SMTP_URL: z.string().optional(),
   MAIL_FROM: z.string().default('Gullyline <no-reply@gullyline.localhost>'),
+  MAIL_MAX_ATTEMPTS: z.coerce.number().int().min(1).max(20).default(6),
+  DEV_MAIL_PAGE: z.enum(['true', 'false', '1', '0', '']).default('').transform((value) => value === 'true' || value === '1'),
+  INVITATION_EXPIRY_DAYS: z.coerce.number().positive().max(90).default(7),
 });
 
 export type AppConfig = {
@@ -44,6 +47,11 @@ export type AppConfig = {
   signIn: { maxFailuresPerEmail: number; maxFailuresPerIp: number; windowMs: number };
   smtpUrl: string | undefined;
   mailFrom: string;
+  /** Sends tried per message before it is marked failed. */
+  mailMaxAttempts: number;
+  /** Whether /dev/mail is served; always outside production. */
+  devMailPage: boolean;
+  invitationExpiryMs: number;
 };
 
 let cached: AppConfig | undefined;
@@ -82,8 +90,11 @@ export function parseConfig(variables: Record<string, string | undefined>): AppC
       maxFailuresPerIp: env.SIGN_IN_MAX_FAILURES_PER_IP,
       windowMs: env.SIGN_IN_WINDOW_MINUTES * 60_000,
     },
-    smtpUrl: env.SMTP_URL,
+    smtpUrl: env.SMTP_URL || undefined,
     mailFrom: env.MAIL_FROM,
+    mailMaxAttempts: env.MAIL_MAX_ATTEMPTS,
+    devMailPage: env.DEV_MAIL_PAGE || env.NODE_ENV !== 'production',
+    invitationExpiryMs: env.INVITATION_EXPIRY_DAYS * 24 * 60 * 60_000,
   };
 }
 

@@ -146,3 +146,9 @@ export function parseId(value: string | undefined, what: string): number {
   if (!value || !/^\d{1,12}$/.test(value) || !Number.isSafeInteger(id) || id < 1) throw new NotFoundError(what);
   return id;
 }
+/** Something that existed and is used up or withdrawn for good (an invitation link). */
+export class GoneError extends DomainError {
+  constructor(message: string) {
+    super(410, message);
+  }
+}

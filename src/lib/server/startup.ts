@@ -1,10 +1,14 @@
 import { ensureMigrated } from './db';
 import { recoverTerrainRuns } from './jobs/terrain-jobs';
+import { startMailWorker } from './mail/outbox';
 
 let ready: Promise<void> | undefined;
 
-/** Once per process, before the first request: migrate, then pick up terrain runs a restart interrupted. */
+/**
+ * Once per process, before the first request: migrate, then pick up terrain runs a restart
+ * interrupted and start the outbox worker.
+ */
 export function ensureReady(): Promise<void> {
-  ready ??= ensureMigrated().then(recoverTerrainRuns);
+  ready ??= ensureMigrated().then(recoverTerrainRuns).then(startMailWorker);
   return ready;
 }

@@ -76,3 +76,8 @@ async function assertAnotherOwner(propertyId: number, trx: Knex): Promise<void> 
     throw new ConflictError('A property needs at least one owner. Make someone else an owner first.');
   }
 }
+
+/** Whether the user is an owner or manager of any property (developer pages). */
+export async function managesAnyProperty(userId: number, trx: Knex = db()): Promise<boolean> {
+  return Boolean(await trx('memberships').where({ user_id: userId }).whereIn('role', ['owner', 'manager']).first('user_id'));
+}
