@@ -32,6 +32,13 @@ describe('db:backup of a running server, db:restore into a fresh folder', () => 
     const dem = readFileSync('data-samples/saltbush-rise-dem.tif');
     const upload = await client.request('POST', `/api/properties/${propertyId}/elevation-models?name=ridge.tif`, new Uint8Array(dem), { 'Content-Type': 'image/tiff' });
     expect(upload.status).toBe(201);
+    // The run sets the property's extent when it finishes: read the property after that, not during.
+    for (let i = 0; ; i++) {
+      const { body } = await client.json<{ elevationModels: { latestRun: { status: string } | null }[] }>('GET', `/api/properties/${propertyId}/elevation-models`);
+      if (body.elevationModels.every((model) => model.latestRun && ['succeeded', 'failed', 'cancelled'].includes(model.latestRun.status))) break;
+      if (i > 600) throw new Error('the terrain run did not finish in two minutes');
+      await new Promise((resolve) => setTimeout(resolve, 200));
+    }
     const before = {
       property: (await client.json('GET', `/api/properties/${propertyId}`)).body,
       fenceLines: (await client.json('GET', `/api/properties/${propertyId}/fence-lines`)).body,
@@ -56,5 +63,5 @@ describe('db:backup of a running server, db:restore into a fresh folder', () => 
     const models = (await again.json<{ elevationModels: { name: string; id: number }[] }>('GET', `/api/properties/${propertyId}/elevation-models`)).body.elevationModels;
     expect(models.map((model) => model.name)).toEqual(['ridge.tif']);
     expect(readFileSync(path.join(restoredDir, `elevation-models/${models[0]!.id}/source.tif`)).equals(dem)).toBe(true);
-  });
+  }, 240_000);
 });
