@@ -19,13 +19,13 @@
  */
 import { execFileSync, spawn, type ChildProcess } from 'node:child_process';
 import { existsSync, mkdtempSync, readFileSync, rmSync } from 'node:fs';
-import { createServer } from 'node:net';
 import { tmpdir } from 'node:os';
 import path from 'node:path';
 import { createHistogram, performance, type RecordableHistogram } from 'node:perf_hooks';
 import Database from 'better-sqlite3';
 import { createMulberry32 } from '../data-samples/lib/prng';
 import { DEMO_ACCOUNTS, DEMO_PASSWORD } from './demo-accounts';
+import { freePort } from './local-process';
 
 const ENTRY = 'dist/server/entry.mjs';
 const AUTH_SECRET = 'bench-secret-that-is-long-enough-for-authjs-0123456789';
@@ -44,16 +44,6 @@ const connections = option('connections', 50);
 const maxRequests = option('max-requests', soak ? 2_000_000 : 200_000);
 const terrainPhaseS = option('terrain-duration', 20);
 
-function freePort(): Promise<number> {
-  return new Promise((resolve, reject) => {
-    const probe = createServer();
-    probe.once('error', reject);
-    probe.listen(0, '127.0.0.1', () => {
-      const address = probe.address();
-      probe.close(() => (typeof address === 'object' && address ? resolve(address.port) : reject(new Error('no port'))));
-    });
-  });
-}
 
 async function startServer(dataDir: string): Promise<{ server: ChildProcess; baseUrl: string }> {
   const port = await freePort();

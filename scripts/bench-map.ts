@@ -19,12 +19,12 @@
  */
 import { spawn, type ChildProcess } from 'node:child_process';
 import { existsSync, mkdtempSync, readdirSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
-import { createServer } from 'node:net';
 import { availableParallelism, loadavg, tmpdir } from 'node:os';
 import path from 'node:path';
 import { brotliCompressSync, constants as zlibConstants, gzipSync } from 'node:zlib';
 import { chromium, type Browser, type BrowserContext, type Page } from 'playwright-core';
 import { BENCH_PROPERTY, seedBenchProperty } from './bench-map-property';
+import { freePort, CHROMIUM_ARGS } from './local-process';
 
 const seed = Number(process.argv[2] ?? 20261202);
 const ENTRY = 'dist/server/entry.mjs';
@@ -35,19 +35,6 @@ const AUTH_SECRET = 'bench-secret-that-is-long-enough-for-authjs-0123456789';
 /** The sources that hold the plan; "drawn" means each has its features. */
 const PLAN_SOURCES = ['plan-fence-lines', 'drainage-lines', 'plan-crossings'];
 
-// Debian's Chromium as the browser tests launch it (tests/helpers/browser.ts): WebGL 2 on SwiftShader.
-const CHROMIUM_ARGS = [
-  '--headless',
-  '--no-sandbox',
-  '--disable-gpu',
-  '--disable-quic',
-  '--no-first-run',
-  '--disable-background-networking',
-  '--disable-component-update',
-  '--disable-sync',
-  '--use-angle=swiftshader',
-  '--enable-unsafe-swiftshader',
-];
 
 type Marks = { publishedMs: number | null; firstIdleMs: number | null; readyIdleMs: number | null; idleCount: number; longTasks: { startMs: number; durationMs: number }[] };
 type ResourceTiming = { name: string; type: string; startMs: number; ttfbMs: number; endMs: number; bytes: number };
@@ -140,16 +127,6 @@ function cpuSplit(serverPid: number): { serverS: number; browserS: number } {
   return { serverS, browserS };
 }
 
-function freePort(): Promise<number> {
-  return new Promise((resolve, reject) => {
-    const probe = createServer();
-    probe.once('error', reject);
-    probe.listen(0, '127.0.0.1', () => {
-      const address = probe.address();
-      probe.close(() => (typeof address === 'object' && address ? resolve(address.port) : reject(new Error('no port'))));
-    });
-  });
-}
 
 async function startServer(dataDir: string): Promise<{ server: ChildProcess; baseUrl: string; output: () => string }> {
   const port = await freePort();

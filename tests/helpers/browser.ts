@@ -3,28 +3,15 @@ import { mkdirSync } from 'node:fs';
 import path from 'node:path';
 import { chromium, type Browser, type BrowserContext, type Page } from 'playwright-core';
 import { inject } from 'vitest';
+import { CHROMIUM_ARGS } from '../../scripts/local-process';
 
 export const CHROMIUM = '/usr/bin/chromium';
 
-// Flags for Debian's Chromium in a closed network (STACK.md): no background calls home, WebGL 2
-// through SwiftShader so MapLibre renders without a GPU.
-const ARGS = [
-  '--headless',
-  '--no-sandbox',
-  '--disable-gpu',
-  '--disable-quic',
-  '--no-first-run',
-  '--disable-background-networking',
-  '--disable-component-update',
-  '--disable-sync',
-  '--use-angle=swiftshader',
-  '--enable-unsafe-swiftshader',
-];
 
 export const SCREENSHOTS = path.resolve('test-output/screenshots');
 
 export async function launchBrowser(): Promise<Browser> {
-  return chromium.launch({ executablePath: CHROMIUM, args: ARGS });
+  return chromium.launch({ executablePath: CHROMIUM, args: CHROMIUM_ARGS });
 }
 
 /**

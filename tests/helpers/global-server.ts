@@ -1,10 +1,10 @@
 import { spawn, type ChildProcess } from 'node:child_process';
 import { existsSync, mkdtempSync, rmSync } from 'node:fs';
-import { createServer } from 'node:net';
 import { tmpdir } from 'node:os';
 import path from 'node:path';
 import type { TestProject } from 'vitest/node';
 import { startMailCatcher } from '../../src/lib/server/mail-catcher';
+import { freePort } from '../../scripts/local-process';
 
 declare module 'vitest' {
   export interface ProvidedContext {
@@ -15,16 +15,6 @@ declare module 'vitest' {
 
 const ENTRY = 'dist/server/entry.mjs';
 
-function freePort(): Promise<number> {
-  return new Promise((resolve, reject) => {
-    const probe = createServer();
-    probe.once('error', reject);
-    probe.listen(0, '127.0.0.1', () => {
-      const address = probe.address();
-      probe.close(() => (typeof address === 'object' && address ? resolve(address.port) : reject(new Error('no port'))));
-    });
-  });
-}
 
 /**
  * Starts the built server (production mode) on a free loopback port over a data folder, and
