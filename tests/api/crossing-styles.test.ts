@@ -3,6 +3,7 @@
 import { readFileSync } from 'node:fs';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { closeServerDb, signedInClient, type TestClient } from '../helpers/api-client';
+import { loadDemoPlan } from '../helpers/demo-plan';
 
 type Summary = { id: number; fenceLineId: number; kind: string; designStatus: string; style: string | null; computedAt: string };
 type Side = { style: string; inPlan: boolean; counts: { endAssemblies: number; flexRunStrainers: number; breakawayTies: number }; wiresRunThrough: boolean; cost?: { totalCents: number; complete: boolean } };
@@ -19,12 +20,10 @@ type Detail = Summary & {
 };
 
 const manifest = JSON.parse(readFileSync('data-samples/saltbush-rise.json', 'utf8')) as { fenceLines: { name: string; pointsLonLat: [number, number][]; crossing: { pointLonLat: [number, number] } }[] };
-const ifd = JSON.parse(readFileSync('data-samples/saltbush-rise-ifd.json', 'utf8')) as Record<string, unknown>;
-const prices = JSON.parse(readFileSync('data-samples/saltbush-rise-prices.json', 'utf8')) as { items: unknown[] };
 
 let manager: TestClient;
 let propertyId = 0;
-const fenceIds = new Map<string, number>();
+let fenceIds = new Map<string, number>();
 const metresBetween = ([lon1, lat1]: [number, number], [lon2, lat2]: [number, number]) => Math.hypot((lon2 - lon1) * 111_320 * Math.cos((lat1 * Math.PI) / 180), (lat2 - lat1) * 110_900);
 
 async function features() {
@@ -40,21 +39,7 @@ const qty = (d: Detail, code: string) => d.design.materials.items.filter((it) =>
 
 beforeAll(async () => {
   manager = (await signedInClient('styles-manager')).client;
-  propertyId = (await manager.json<{ property: { id: number } }>('POST', '/api/properties', { name: 'Saltbush Rise (styles)', crs: 'EPSG:7854' })).body.property.id;
-  await manager.json('PATCH', `/api/properties/${propertyId}/settings`, { version: 0, ifdTable: ifd, priceList: prices.items });
-  const upload = await manager.request('POST', `/api/properties/${propertyId}/elevation-models?name=dem.tif`, new Uint8Array(readFileSync('data-samples/saltbush-rise-dem.tif')), { 'Content-Type': 'image/tiff' });
-  const runId = ((await upload.json()) as { run: { id: number } }).run.id;
-  for (let i = 0; ; i++) {
-    const { body } = await manager.json<{ run: { status: string; message: string | null } }>('GET', `/api/properties/${propertyId}/terrain-runs/${runId}`);
-    if (body.run.status === 'succeeded') break;
-    if (body.run.status !== 'queued' && body.run.status !== 'running') throw new Error(`terrain run ${body.run.status}: ${body.run.message}`);
-    if (i > 1000) throw new Error('terrain run did not finish in 100 s');
-    await new Promise((resolve) => setTimeout(resolve, 100));
-  }
-  for (const fence of manifest.fenceLines) {
-    const { body } = await manager.json<{ fenceLine: { id: number } }>('POST', `/api/properties/${propertyId}/fence-lines`, { name: fence.name, coordinates: fence.pointsLonLat });
-    fenceIds.set(fence.name, body.fenceLine.id);
-  }
+  ({ propertyId, fenceIds } = await loadDemoPlan(manager, 'Saltbush Rise (styles)'));
 }, 120_000);
 afterAll(closeServerDb);
 

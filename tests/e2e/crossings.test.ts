@@ -1,7 +1,6 @@
-import type { Browser, Page } from 'playwright-core';
+import type { Browser } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { DEMO_ACCOUNTS, DEMO_PASSWORD } from '../../scripts/demo-accounts';
-import { appContext, launchBrowser, screenshot, seedDemoIntoTestServer, signInThroughPage, waitForMap } from '../helpers/browser';
+import { launchBrowser, screenshot, seedDemoIntoTestServer, openDemoWorkspace } from '../helpers/browser';
 
 let browser: Browser;
 beforeAll(async () => {
@@ -10,18 +9,7 @@ beforeAll(async () => {
 });
 afterAll(() => browser?.close());
 
-async function openDemo(role: 'manager' | 'viewer'): Promise<{ page: Page; outsideRequests: string[]; close: () => Promise<void> }> {
-  const account = DEMO_ACCOUNTS.find((a) => a.role === role)!;
-  const { context, outsideRequests } = await appContext(browser);
-  const page = await context.newPage();
-  await signInThroughPage(page, account.email, DEMO_PASSWORD);
-  await page.waitForURL('**/app');
-  await page.getByRole('link', { name: /Saltbush Rise/ }).first().click();
-  await waitForMap(page);
-  // Terrain run and crossing analysis happen on the server after the seed: up to a minute here.
-  await page.getByTestId('crossing-row').first().waitFor({ timeout: 60_000 });
-  return { page, outsideRequests, close: () => context.close() };
-}
+const openDemo = (role: 'manager' | 'viewer') => openDemoWorkspace(browser, role);
 
 describe('crossings in the workspace', () => {
   it('lists the demo crossings and shows the full design of the 35° one, with its cautions', async () => {

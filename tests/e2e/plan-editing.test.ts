@@ -5,8 +5,7 @@
 // geometry made outside it.
 import type { Browser, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { DEMO_ACCOUNTS, DEMO_PASSWORD } from '../../scripts/demo-accounts';
-import { appContext, launchBrowser, screenshot, seedDemoIntoTestServer, signInThroughPage, waitForMap } from '../helpers/browser';
+import { launchBrowser, screenshot, seedDemoIntoTestServer, waitForMap, openDemoWorkspace } from '../helpers/browser';
 import { drainageLines, fenceAcrossSegment, mainCreekPoint, propertyIdOf } from '../helpers/creek-fence';
 
 let browser: Browser;
@@ -16,17 +15,7 @@ beforeAll(async () => {
 });
 afterAll(() => browser?.close());
 
-async function openDemo(role: 'manager' | 'crew', viewport?: { width: number; height: number }) {
-  const account = DEMO_ACCOUNTS.find((a) => a.role === role)!;
-  const { context, outsideRequests } = await appContext(browser, { viewport });
-  const page = await context.newPage();
-  await signInThroughPage(page, account.email, DEMO_PASSWORD);
-  await page.waitForURL('**/app');
-  await page.getByRole('link', { name: /Saltbush Rise/ }).first().click();
-  await waitForMap(page);
-  await page.getByTestId('crossing-row').first().waitFor({ timeout: 60_000 });
-  return { page, outsideRequests, close: () => context.close() };
-}
+const openDemo = (role: 'manager' | 'crew', viewport?: { width: number; height: number }) => openDemoWorkspace(browser, role, viewport);
 
 /** Frames the given points on the map and returns their positions on the page. */
 async function framePoints(page: Page, points: [number, number][]): Promise<{ x: number; y: number }[]> {

@@ -1,8 +1,7 @@
 import type { Browser, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { DEMO_ACCOUNTS, DEMO_PASSWORD } from '../../scripts/demo-accounts';
 import type { CrossingDetailView, DesignedCrossingView } from '../../src/lib/schemas/crossing-view';
-import { appContext, launchBrowser, screenshot, seedDemoIntoTestServer, signInThroughPage, waitForMap } from '../helpers/browser';
+import { launchBrowser, screenshot, seedDemoIntoTestServer, openDemoWorkspace } from '../helpers/browser';
 
 let browser: Browser;
 beforeAll(async () => {
@@ -12,18 +11,7 @@ beforeAll(async () => {
 afterAll(() => browser?.close());
 
 /** Signs the demo manager in at this viewport and opens the demo property's workspace. */
-async function openDemo(viewport: { width: number; height: number }) {
-  const manager = DEMO_ACCOUNTS.find((account) => account.role === 'manager')!;
-  const { context, outsideRequests } = await appContext(browser, { viewport });
-  const page = await context.newPage();
-  await signInThroughPage(page, manager.email, DEMO_PASSWORD);
-  await page.waitForURL('**/app');
-  await page.getByRole('link', { name: /Saltbush Rise/ }).first().click();
-  await waitForMap(page);
-  // Terrain run and crossing analysis happen on the server after the seed: up to a minute here.
-  await page.getByTestId('crossing-row').first().waitFor({ timeout: 60_000 });
-  return { page, outsideRequests, close: () => context.close() };
-}
+const openDemo = (viewport: { width: number; height: number }) => openDemoWorkspace(browser, 'manager', viewport);
 
 /** Opens the 35° crossing of the South cross fence (designed, with stayed posts and a tie) and returns what the API answered for it. */
 async function openDesignedCrossing(page: Page): Promise<CrossingDetailView & { design: DesignedCrossingView }> {

@@ -4,6 +4,7 @@ import path from 'node:path';
 import { chromium, type Browser, type BrowserContext, type Page } from 'playwright-core';
 import { inject } from 'vitest';
 import { CHROMIUM_ARGS } from '../../scripts/local-process';
+import { DEMO_ACCOUNTS, DEMO_PASSWORD } from '../../scripts/demo-accounts';
 
 export const CHROMIUM = '/usr/bin/chromium';
 
@@ -65,4 +66,20 @@ export function seedDemoIntoTestServer(): void {
     env: { ...process.env, DATA_DIR: inject('dataDir'), DATABASE_URL: '', NODE_ENV: 'test' },
     stdio: 'pipe',
   });
+}
+
+/**
+ * Signs a demo account in through the pages and opens the demo property's workspace, waiting for
+ * its crossings (the terrain run and crossing analysis after the seed take up to a minute).
+ */
+export async function openDemoWorkspace(browser: Browser, role: 'owner' | 'manager' | 'crew' | 'viewer', viewport?: { width: number; height: number }) {
+  const account = DEMO_ACCOUNTS.find((a) => a.role === role)!;
+  const { context, outsideRequests } = await appContext(browser, { viewport });
+  const page = await context.newPage();
+  await signInThroughPage(page, account.email, DEMO_PASSWORD);
+  await page.waitForURL('**/app');
+  await page.getByRole('link', { name: /Saltbush Rise/ }).first().click();
+  await waitForMap(page);
+  await page.getByTestId('crossing-row').first().waitFor({ timeout: 60_000 });
+  return { page, outsideRequests, close: () => context.close() };
 }

@@ -57,6 +57,24 @@ function FenceSwatch({ status }: { status: FenceStatus }) {
   );
 }
 
+type SwitchRow<K extends string> = { key: K; label: string; swatch: React.CSSProperties };
+
+/** Checkboxes that show or hide layers, each with its swatch. */
+function SwitchRows<K extends string>({ label, rows, visible, onChange }: { label: string; rows: SwitchRow<K>[]; visible: Record<K, boolean>; onChange: (next: Record<K, boolean>) => void }) {
+  return (
+    <fieldset aria-label={label}>
+      <legend className="sr-only">{label}</legend>
+      {rows.map((row) => (
+        <label key={row.key} className="flex min-h-11 cursor-pointer items-center gap-2">
+          <input type="checkbox" className="h-5 w-5" checked={visible[row.key]} onChange={(e) => onChange({ ...visible, [row.key]: e.target.checked })} />
+          <span aria-hidden="true" className="inline-block w-6 rounded-sm" style={row.swatch} />
+          {row.label}
+        </label>
+      ))}
+    </fieldset>
+  );
+}
+
 /** Open on a wide screen; on a phone the key starts folded so it does not cover the map. */
 const startsOpen = () => typeof window === 'undefined' || window.matchMedia('(min-width: 768px)').matches;
 
@@ -72,40 +90,8 @@ export default function LayerToggles({ visible, onChange, showTerrain, fenceStat
     >
       <summary className="flex min-h-11 cursor-pointer items-center px-3 font-semibold text-bark-900">Map key</summary>
       <div className="flex flex-col gap-2 px-3 pb-2">
-        {showTerrain && (
-          <fieldset aria-label="Map layers">
-            <legend className="sr-only">Map layers</legend>
-            {ROWS.map((row) => (
-              <label key={row.key} className="flex min-h-11 cursor-pointer items-center gap-2">
-                <input
-                  type="checkbox"
-                  className="h-5 w-5"
-                  checked={visible[row.key]}
-                  onChange={(e) => onChange({ ...visible, [row.key]: e.target.checked })}
-                />
-                <span aria-hidden="true" className="inline-block w-6 rounded-sm" style={row.swatch} />
-                {row.label}
-              </label>
-            ))}
-          </fieldset>
-        )}
-        {planRows.length > 0 && (
-          <fieldset aria-label="Plan layers">
-            <legend className="sr-only">Plan layers</legend>
-            {planRows.map((row) => (
-              <label key={row.key} className="flex min-h-11 cursor-pointer items-center gap-2">
-                <input
-                  type="checkbox"
-                  className="h-5 w-5"
-                  checked={planVisible[row.key]}
-                  onChange={(e) => onPlanChange({ ...planVisible, [row.key]: e.target.checked })}
-                />
-                <span aria-hidden="true" className="inline-block w-6 rounded-sm" style={row.swatch} />
-                {row.label}
-              </label>
-            ))}
-          </fieldset>
-        )}
+        {showTerrain && <SwitchRows label="Map layers" rows={ROWS} visible={visible} onChange={onChange} />}
+        {planRows.length > 0 && <SwitchRows label="Plan layers" rows={planRows} visible={planVisible} onChange={onPlanChange} />}
         {fenceStatuses.length > 0 && (
           <div>
             <p className="font-semibold text-bark-700">Fence lines</p>
