@@ -54,7 +54,8 @@ export async function waitForMap(page: Page): Promise<void> {
   await page.waitForFunction(() => {
     const map = (window as unknown as { __gullylineMap?: { loaded(): boolean; areTilesLoaded(): boolean } }).__gullylineMap;
     return !!map && map.loaded() && map.areTilesLoaded();
-  }, undefined, { timeout: 30_000 });
+    // The first test to open the demo meets its terrain run and crossing analysis in full swing.
+  }, undefined, { timeout: 60_000 });
 }
 
 /**
