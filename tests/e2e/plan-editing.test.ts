@@ -79,7 +79,7 @@ describe('drawing and editing the plan', () => {
     await close();
   }, 180_000);
 
-  it('reshapes a fence by dragging a point, and a stale save is caught with both choices offered', async () => {
+  it('reshapes a fence by dragging points, removes points by tapping, and catches a stale save with both choices offered', async () => {
     const { page, close } = await openDemo('manager');
     const propertyId = propertyIdOf(page);
     const { ends: [start, end] } = fenceAcrossSegment(await drainageLines(page, propertyId), mainCreekPoint(430), 90);
@@ -105,7 +105,25 @@ describe('drawing and editing the plan', () => {
     await page.mouse.move(b!.x + 60, b!.y, { steps: 5 });
     await page.mouse.up();
     await expect.poll(() => page.getByTestId('draft-measure').textContent()).toMatch(/Now: 3\d\d m/);
-    expect(a).toBeDefined();
+    const moved = await page.getByTestId('draft-measure').textContent();
+
+    // Drag the middle handle aside: a third point, a longer line.
+    const middle = { x: (a!.x + b!.x + 60) / 2, y: (a!.y + b!.y) / 2 };
+    await page.mouse.move(middle.x, middle.y, { steps: 3 });
+    await page.mouse.down();
+    await page.mouse.move(middle.x, middle.y + 20, { steps: 5 });
+    await page.mouse.move(middle.x, middle.y + 40, { steps: 5 });
+    await page.mouse.up();
+    await expect.poll(() => page.getByTestId('draft-measure').textContent()).not.toBe(moved);
+
+    // Remove points, as on a phone: tap the new point and the line is as it was; a two-point line keeps both.
+    await page.getByTestId('reshape-remove-points').click();
+    await page.mouse.click(middle.x, middle.y + 40);
+    await expect.poll(() => page.getByTestId('draft-measure').textContent()).toBe(moved);
+    await page.mouse.click(a!.x, a!.y);
+    await expect.poll(async () => (await page.getByTestId('edit-error').textContent()) ?? '').toMatch(/at least two points/);
+    expect(await page.getByTestId('draft-measure').textContent()).toBe(moved);
+    await page.getByTestId('reshape-remove-points').click();
 
     // Someone else saves a change first.
     await page.evaluate(

@@ -6,7 +6,8 @@ type Props = { editor: PlanEditor };
 const HINTS = {
   fence: 'Click to add points; click the last point again or press Enter to finish. Points snap to fence ends and tracks.',
   paddock: 'Click around the paddock; click the first point or press Enter to close it.',
-  reshape: 'Drag a point to move it, drag a small middle point to add one, right-click a point to remove it.',
+  reshape: 'Drag a point to move it, drag a small middle point to add one, right-click a point (or use Remove points) to remove it.',
+  removing: 'Tap or click a point to remove it. Press Remove points again to go back to moving them.',
 } as const;
 
 /**
@@ -18,7 +19,7 @@ export function EditToolbar({ editor }: Props) {
   const drawing = tool.kind === 'draw';
   const reshaping = tool.kind === 'reshape';
   const measure = formatMeasures(measures);
-  const hint = drawing ? HINTS[tool.shape] : reshaping ? HINTS.reshape : null;
+  const hint = drawing ? HINTS[tool.shape] : reshaping ? (editor.removingPoints ? HINTS.removing : HINTS.reshape) : null;
 
   return (
     <div
@@ -53,6 +54,17 @@ export function EditToolbar({ editor }: Props) {
               {drawing && (
                 <button type="button" className="btn-primary min-h-11 px-3" onClick={() => controlsRef.current?.finish()} aria-keyshortcuts="Enter" data-testid="draft-finish">
                   Finish
+                </button>
+              )}
+              {reshaping && (
+                <button
+                  type="button"
+                  className={`min-h-11 px-3 ${editor.removingPoints ? 'btn bg-bark-900 text-white' : 'btn-quiet'}`}
+                  aria-pressed={editor.removingPoints}
+                  onClick={() => editor.setRemovingPoints(!editor.removingPoints)}
+                  data-testid="reshape-remove-points"
+                >
+                  Remove points
                 </button>
               )}
               {reshaping && (

@@ -29,10 +29,15 @@ type Props = {
   /** The shape as it is now, while drawing (with the point under the pointer) or reshaping. */
   onShapeChange: (shape: DraftShape | null) => void;
   onHistoryChange: (history: { canUndo: boolean; canRedo: boolean }) => void;
-  /** A shape given to reshape could not be put on the drawing layer. */
+  /** A shape given to reshape could not be put on the drawing layer, or a point could not go. */
   onLoadFailed: (message: string) => void;
+  /** While reshaping: a click or tap on a point removes it (the touch way; right-click also works). */
+  removingPoints: boolean;
   controlsRef: Ref<DrawControls>;
 };
+
+/** How near, in screen pixels, a tap must fall to a point to remove it (a fingertip's width). */
+const REMOVE_REACH_PX = 22;
 
 /** How near, in screen pixels, a pointer must come to a fence end or a track to snap to it. */
 const SNAP_TOLERANCE_PX = 12;
@@ -58,7 +63,7 @@ function toFeature(draw: TerraDraw, shape: DraftShape) {
  * The drawing layer on the map (Terra Draw). Rendered inside the map; the workspace drives it
  * through `tool` and hears back through the callbacks, so the map's own layers stay the saved plan.
  */
-export default function PlanDrawing({ tool, snapTargets, onFinished, onShapeChange, onHistoryChange, onLoadFailed, controlsRef }: Props) {
+export default function PlanDrawing({ tool, snapTargets, onFinished, onShapeChange, onHistoryChange, onLoadFailed, removingPoints, controlsRef }: Props) {
   const { current: mapRef } = useMap();
   const drawRef = useRef<TerraDraw | null>(null);
   // Callbacks and targets are read through refs so the Terra Draw instance is made only once.
@@ -123,6 +128,38 @@ export default function PlanDrawing({ tool, snapTargets, onFinished, onShapeChan
     latest.current.onShapeChange(shapeOf(draw));
     latest.current.onHistoryChange({ canUndo: false, canRedo: false });
   }, [toolKey]);
+
+  // Removing points by tapping them: the nearest point within reach of the tap goes.
+  useEffect(() => {
+    const map = mapRef?.getMap();
+    const draw = drawRef.current;
+    if (!map || !draw || !removingPoints || tool.kind !== 'reshape') return;
+    const onClick = (event: { point: { x: number; y: number } }) => {
+      const feature = draw.getSnapshot().find((f) => f.properties.mode === DRAW_MODES.fence || f.properties.mode === DRAW_MODES.paddock);
+      if (!feature) return;
+      const isFence = feature.geometry.type === 'LineString';
+      const points = (isFence ? feature.geometry.coordinates : (feature.geometry.coordinates as LonLat[][])[0]!.slice(0, -1)) as LonLat[];
+      let nearest = -1;
+      let nearestPx = REMOVE_REACH_PX;
+      points.forEach(([lon, lat], index) => {
+        const at = map.project([lon, lat]);
+        const px = Math.hypot(at.x - event.point.x, at.y - event.point.y);
+        if (px <= nearestPx) [nearest, nearestPx] = [index, px];
+      });
+      if (nearest < 0) return;
+      if (points.length <= (isFence ? 2 : 3)) {
+        latest.current.onLoadFailed(isFence ? 'A fence line keeps at least two points.' : 'A paddock keeps at least three corners.');
+        return;
+      }
+      const kept = points.filter((_, index) => index !== nearest);
+      draw.updateFeatureGeometry(feature.id!, isFence ? { type: 'LineString', coordinates: kept } : { type: 'Polygon', coordinates: [[...kept, kept[0]!]] });
+      latest.current.onShapeChange(shapeOf(draw));
+    };
+    map.on('click', onClick);
+    return () => {
+      map.off('click', onClick);
+    };
+  }, [mapRef, removingPoints, tool.kind]);
 
   useImperativeHandle(controlsRef, () => ({
     undo: () => drawRef.current?.undo(),

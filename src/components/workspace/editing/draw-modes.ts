@@ -41,7 +41,7 @@ const vertexStyles = {
  */
 export function createPlanDraw(map: MaplibreMap, snap: SnapToCustom): TerraDraw {
   const snapping = { toCustom: snap, toCoordinate: true };
-  const reshapeCoordinates = { draggable: true, midpoints: true, deletable: true, snappable: snapping };
+  const reshapeCoordinates = { draggable: true, midpoints: { draggable: true }, deletable: true, snappable: snapping };
   return new TerraDraw({
     adapter: new TerraDrawMapLibreGLAdapter({ map, coordinatePrecision: 9 }),
     modes: [

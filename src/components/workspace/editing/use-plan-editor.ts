@@ -51,6 +51,7 @@ export function usePlanEditor({ propertyId, onSaved }: Options) {
   const [busy, setBusy] = useState(false);
   const [error, setError] = useState<{ message: string; fields: Record<string, string> } | null>(null);
   const [conflict, setConflict] = useState<EditConflict | null>(null);
+  const [removingPoints, setRemovingPoints] = useState(false);
   const controlsRef = useRef<DrawControls>(null);
   const taskRef = useRef(task);
   taskRef.current = task;
@@ -63,6 +64,7 @@ export function usePlanEditor({ propertyId, onSaved }: Options) {
     setError(null);
     setConflict(null);
     setBusy(false);
+    setRemovingPoints(false);
   }, []);
 
   const refreshPlan = useCallback(async () => {
@@ -188,8 +190,11 @@ export function usePlanEditor({ propertyId, onSaved }: Options) {
     saveNewFence,
     saveNewPaddock,
     saveShape,
+    removingPoints,
+    setRemovingPoints,
     drawingProps: {
       tool,
+      removingPoints,
       onFinished,
       onShapeChange: setShape,
       onHistoryChange: setHistory,
