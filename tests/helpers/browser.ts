@@ -49,13 +49,27 @@ export async function signInThroughPage(page: Page, email: string, password: str
   await page.getByRole('button', { name: 'Sign in' }).click();
 }
 
-/** Waits until the workspace map has loaded its style and drawn a frame. */
+/**
+ * Waits until the workspace map has loaded its style and data and drawn a frame: found loaded when
+ * polled, or seen firing `idle` (a busy machine can keep a map reloading between polls).
+ */
 export async function waitForMap(page: Page): Promise<void> {
-  await page.waitForFunction(() => {
-    const map = (window as unknown as { __gullylineMap?: { loaded(): boolean; areTilesLoaded(): boolean } }).__gullylineMap;
-    return !!map && map.loaded() && map.areTilesLoaded();
+  type Watched = { loaded(): boolean; areTilesLoaded(): boolean; on(event: 'idle', listener: () => void): void };
+  await page.waitForFunction(
+    () => {
+      const win = window as unknown as { __gullylineMap?: Watched; __mapIdleSeen?: boolean };
+      const map = win.__gullylineMap;
+      if (!map) return false;
+      if (win.__mapIdleSeen === undefined) {
+        win.__mapIdleSeen = false;
+        map.on('idle', () => (win.__mapIdleSeen = true));
+      }
+      return win.__mapIdleSeen || (map.loaded() && map.areTilesLoaded());
+    },
+    undefined,
     // The first test to open the demo meets its terrain run and crossing analysis in full swing.
-  }, undefined, { timeout: 60_000 });
+    { timeout: 90_000, polling: 100 },
+  );
 }
 
 /**
