@@ -1,5 +1,5 @@
 import 'maplibre-gl/dist/maplibre-gl.css';
-import { useEffect, useId, useMemo, useRef, useState, type ReactNode } from 'react';
+import { createContext, useEffect, useId, useMemo, useRef, useState, type ReactNode } from 'react';
 import Map, { Layer, NavigationControl, ScaleControl, Source, useMap, type MapRef } from 'react-map-gl/maplibre';
 import type { LngLatBoundsLike, MapGeoJSONFeature, Map as MaplibreMap, MapMouseEvent } from 'maplibre-gl';
 import { createExtentFeatures, toUsableExtent } from './extent';
@@ -14,6 +14,12 @@ declare global {
     __gullylineMap?: MaplibreMap;
   }
 }
+
+/**
+ * Whether the map has fired `load` (its style is in place). Children that add sources and layers
+ * by hand (the drawing layer) wait for it: before it MapLibre refuses them.
+ */
+export const MapLoadedContext = createContext(false);
 
 export type PropertyMapProps = {
   propertyName: string;
@@ -163,7 +169,7 @@ export default function PropertyMap({ propertyName, extentWgs84, children, inter
             ))}
           </Source>
         )}
-        {children}
+        <MapLoadedContext.Provider value={loaded}>{children}</MapLoadedContext.Provider>
         <NavigationControl position="top-right" visualizePitch={false} />
         <ScaleControl position="bottom-left" unit="metric" maxWidth={120} />
         <CursorReadout groundHeightAt={groundHeightAt} />

@@ -1,7 +1,8 @@
-import { useEffect, useImperativeHandle, useRef, type Ref } from 'react';
+import { useContext, useEffect, useImperativeHandle, useRef, type Ref } from 'react';
 import { useMap } from 'react-map-gl/maplibre';
 import type { TerraDraw } from 'terra-draw';
 import { snapToPlan, type SnapTargets } from '../../../lib/geo/snap-to-plan';
+import { MapLoadedContext } from '../../map/PropertyMap';
 import { DRAW_MODES, createPlanDraw } from './draw-modes';
 
 type LonLat = [number, number];
@@ -65,14 +66,16 @@ function toFeature(draw: TerraDraw, shape: DraftShape) {
  */
 export default function PlanDrawing({ tool, snapTargets, onFinished, onShapeChange, onHistoryChange, onLoadFailed, removingPoints, controlsRef }: Props) {
   const { current: mapRef } = useMap();
+  const mapLoaded = useContext(MapLoadedContext);
   const drawRef = useRef<TerraDraw | null>(null);
   // Callbacks and targets are read through refs so the Terra Draw instance is made only once.
   const latest = useRef({ snapTargets, onFinished, onShapeChange, onHistoryChange, onLoadFailed });
   latest.current = { snapTargets, onFinished, onShapeChange, onHistoryChange, onLoadFailed };
 
+  // Terra Draw adds its sources and layers at start: only once the style is in place.
   useEffect(() => {
     const map = mapRef?.getMap();
-    if (!map) return;
+    if (!map || !mapLoaded) return;
     const draw = createPlanDraw(map, (event, context) =>
       snapToPlan({ x: event.containerX, y: event.containerY }, latest.current.snapTargets, (lon, lat) => context.project(lon, lat), SNAP_TOLERANCE_PX),
     );
@@ -98,7 +101,7 @@ export default function PlanDrawing({ tool, snapTargets, onFinished, onShapeChan
       drawRef.current = null;
       draw.stop();
     };
-  }, [mapRef]);
+  }, [mapRef, mapLoaded]);
 
   // Each tool change sets the mode and what is on the drawing layer.
   const toolKey = JSON.stringify(tool);
@@ -127,7 +130,7 @@ export default function PlanDrawing({ tool, snapTargets, onFinished, onShapeChan
     }
     latest.current.onShapeChange(shapeOf(draw));
     latest.current.onHistoryChange({ canUndo: false, canRedo: false });
-  }, [toolKey]);
+  }, [toolKey, mapLoaded]);
 
   // Removing points by tapping them: the nearest point within reach of the tap goes.
   useEffect(() => {
