@@ -28,6 +28,7 @@ import { designCrossing } from '../src/lib/crossings/design-crossing';
 import { buildDrainageIndex, findCrossings } from '../src/lib/crossings/geometry/index';
 import type { Crossing, RunsAlong } from '../src/lib/crossings/geometry/types';
 import { positionsOfLayout } from '../src/lib/crossings/layout-positions';
+import { crossingRow } from '../src/lib/server/crossings/crossing-row';
 import { boundsOf, lineLengthM } from '../src/lib/geo/measure';
 import { createFromWgs84, createToWgs84, roundLonLat } from '../src/lib/geo/reproject';
 import { DEFAULT_DESIGN_SETTINGS } from '../src/lib/schemas/crossing';
@@ -374,24 +375,7 @@ export async function seedBenchProperty(seed: number): Promise<SeededProperty & 
       const design = crossing.kind === 'crossing' ? designAt(crossing, fenceById.get(Number(crossing.fenceId))!, slopeOf.get(Number(crossing.drainageId)) ?? 0.002, random, ifd) : null;
       const status = design?.status ?? 'touch';
       statuses[status] = (statuses[status] ?? 0) + 1;
-      const extras = { flowBearingDeg: crossing.flowBearingDeg, fenceSegmentIndex: crossing.fenceSegmentIndex, touchReason: crossing.touchReason };
-      return {
-        property_id: property.id,
-        fence_line_id: Number(crossing.fenceId),
-        drainage_line_id: Number(crossing.drainageId),
-        kind: crossing.flags.includes('crosses-twice') ? 'crosses-twice' : crossing.kind,
-        lon: crossing.position[0],
-        lat: crossing.position[1],
-        chainage_m: crossing.fenceChainageM,
-        angle_deg: crossing.crossingAngleDeg,
-        angle_class: crossing.angleClass,
-        upstream_area_m2: design?.catchment ? design.catchment.areaHa * 10_000 : crossing.upstreamAreaM2,
-        stream_order: crossing.streamOrder,
-        inputs: '{}',
-        design: JSON.stringify(design ? { ...design, ...extras } : extras),
-        design_status: status,
-        computed_at: now,
-      };
+      return crossingRow({ propertyId: property.id, crossing, design, inputs: {}, computedAt: now });
     }),
   );
   for (const along of runsAlong) {

@@ -9,6 +9,7 @@ import { listFenceLines } from '../repos/fence-lines';
 import { getPropertySettings } from '../repos/property-settings';
 import { catchmentFiguresAt, profileAlong } from '../terrain/terrain-queries';
 import { positionsOfLayout, type LayoutPositions } from '../../crossings/layout-positions';
+import { crossingRow } from './crossing-row';
 
 type DrainageRow = { id: number; property_id: number; geometry: string; stream_order: number; upstream_area_start_m2: number; upstream_area_end_m2: number; mean_slope: number };
 type OldCrossing = { id: number; fence_line_id: number; drainage_line_id: number | null; kind: string; chainage_m: number; inputs: string };
@@ -86,24 +87,7 @@ async function analyse(propertyId: number, fenceLineIds?: number[]): Promise<{ c
             )
           : null;
       if (design?.status === 'designed') designed += 1;
-      rows.push({
-        property_id: propertyId,
-        fence_line_id: fence.id,
-        drainage_line_id: Number(crossing.drainageId),
-        kind: crossing.flags.includes('crosses-twice') ? 'crosses-twice' : crossing.kind,
-        lon: crossing.position[0],
-        lat: crossing.position[1],
-        chainage_m: crossing.fenceChainageM,
-        angle_deg: crossing.crossingAngleDeg,
-        angle_class: crossing.angleClass,
-        // The catchment traced at the crossing beats the drainage line's area interpolated by length.
-        upstream_area_m2: design?.catchment ? design.catchment.areaHa * 10_000 : crossing.upstreamAreaM2,
-        stream_order: crossing.streamOrder,
-        inputs: JSON.stringify(inputs),
-        design: design ? JSON.stringify({ ...design, flowBearingDeg: crossing.flowBearingDeg, fenceSegmentIndex: crossing.fenceSegmentIndex, touchReason: crossing.touchReason }) : JSON.stringify({ flowBearingDeg: crossing.flowBearingDeg, fenceSegmentIndex: crossing.fenceSegmentIndex, touchReason: crossing.touchReason }),
-        design_status: design?.status ?? (crossing.kind === 'touch' ? 'touch' : 'no-terrain'),
-        computed_at: new Date().toISOString(),
-      });
+      rows.push(crossingRow({ propertyId, crossing, design, inputs, computedAt: new Date().toISOString() }));
     }
   }
   for (const along of found.runsAlong) {

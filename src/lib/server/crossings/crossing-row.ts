@@ -1,0 +1,30 @@
+import type { Crossing } from '../../crossings/geometry/types';
+
+type DesignLike = { status: string; catchment?: { areaHa: number } | null } & Record<string, unknown>;
+
+/**
+ * The `crossings` row of one found crossing and its design (or none): the analysis writes these,
+ * and so does the map benchmark's generated property. With no design the status says why.
+ */
+export function crossingRow(input: { propertyId: number; crossing: Crossing; design: DesignLike | null; inputs: unknown; computedAt: string }) {
+  const { propertyId, crossing, design, inputs, computedAt } = input;
+  const extras = { flowBearingDeg: crossing.flowBearingDeg, fenceSegmentIndex: crossing.fenceSegmentIndex, touchReason: crossing.touchReason };
+  return {
+    property_id: propertyId,
+    fence_line_id: Number(crossing.fenceId),
+    drainage_line_id: Number(crossing.drainageId),
+    kind: crossing.flags.includes('crosses-twice') ? 'crosses-twice' : crossing.kind,
+    lon: crossing.position[0],
+    lat: crossing.position[1],
+    chainage_m: crossing.fenceChainageM,
+    angle_deg: crossing.crossingAngleDeg,
+    angle_class: crossing.angleClass,
+    // The catchment traced at the crossing beats the drainage line's area interpolated by length.
+    upstream_area_m2: design?.catchment ? design.catchment.areaHa * 10_000 : crossing.upstreamAreaM2,
+    stream_order: crossing.streamOrder,
+    inputs: JSON.stringify(inputs),
+    design: JSON.stringify(design ? { ...design, ...extras } : extras),
+    design_status: design?.status ?? (crossing.kind === 'touch' ? 'touch' : 'no-terrain'),
+    computed_at: computedAt,
+  };
+}
