@@ -7,6 +7,8 @@ declare global {
     interface Locals {
       /** The signed-in user, or null for an anonymous visitor (set by src/middleware.ts). */
       user: SessionUser | null;
+      /** Why a page was refused (a 403), for the not-allowed page a refusal is rewritten to. */
+      refusal?: string;
     }
   }
 }

@@ -26,6 +26,10 @@ const answerErrors = defineMiddleware(async (context, next) => {
   } catch (error) {
     if (error instanceof DomainError) {
       if (!isApi(context.url.pathname) && error.status === 404) return context.rewrite('/404');
+      if (!isApi(context.url.pathname) && error.status === 403) {
+        context.locals.refusal = error.message;
+        return context.rewrite('/not-allowed');
+      }
       return errorResponse(error);
     }
     return internalErrorResponse(error);
