@@ -11,7 +11,13 @@ type Props = { propertyId: number; canInviteOwners: boolean; initialInvitations:
 function InvitationsPanel({ propertyId, canInviteOwners, initialInvitations }: Props) {
   const queryClient = useQueryClient();
   const queryKey = ['invitations', propertyId];
-  const invitations = useQuery({ queryKey, queryFn: () => api.listInvitations(propertyId).then((r) => r.invitations), initialData: initialInvitations });
+  const invitations = useQuery({
+    queryKey,
+    queryFn: () => api.listInvitations(propertyId).then((r) => r.invitations),
+    initialData: initialInvitations,
+    // While an e-mail is still on its way, look again so its state does not go stale on screen.
+    refetchInterval: (query) => (query.state.data?.some((i) => i.mail?.status === 'queued' || i.mail?.status === 'sending') ? 5000 : false),
+  });
   const refresh = () => queryClient.invalidateQueries({ queryKey });
   const roles = ROLES.filter((role) => canInviteOwners || role !== 'owner');
   const [email, setEmail] = useState('');
@@ -20,7 +26,7 @@ function InvitationsPanel({ propertyId, canInviteOwners, initialInvitations }: P
   const invite = useMutation({
     mutationFn: () => api.createInvitation(propertyId, { email, role }),
     onSuccess: ({ invitation }) => {
-      setNotice(`Invitation sent to ${invitation.email}.`);
+      setNotice(`Invitation to ${invitation.email} saved; its e-mail is on its way.`);
       setEmail('');
     },
     onSettled: refresh,
@@ -95,12 +101,37 @@ function InvitationsPanel({ propertyId, canInviteOwners, initialInvitations }: P
               >
                 Revoke
               </button>
+              <MailState invitation={invitation} />
             </li>
           ))}
         </ul>
       )}
     </div>
   );
+}
+
+/** Whether the invitation e-mail went: a failed send is shown, with what to do about it. */
+function MailState({ invitation }: { invitation: Invitation }) {
+  const mail = invitation.mail;
+  if (!mail) return null;
+  const time = (iso: string) => new Date(iso).toLocaleTimeString('en-AU', { hour: 'numeric', minute: '2-digit' });
+  if (mail.status === 'sent') return <span className="w-full text-sm text-saltbush-700" data-testid="invitation-mail">E-mail sent.</span>;
+  if (mail.status === 'failed') {
+    return (
+      <span className="w-full text-sm font-semibold text-clay-600" data-testid="invitation-mail" data-state="failed">
+        The e-mail could not be sent{mail.lastError ? `: ${mail.lastError}` : ''}. Check the address and invite again, or give them the news another way.
+      </span>
+    );
+  }
+  if (mail.attempts > 0) {
+    return (
+      <span className="w-full text-sm text-clay-600" data-testid="invitation-mail" data-state="retrying">
+        Not sent yet: the mail server refused it{mail.lastError ? ` (${mail.lastError})` : ''}. Trying again
+        {mail.nextAttemptAt ? ` at ${time(mail.nextAttemptAt)}` : ' soon'}.
+      </span>
+    );
+  }
+  return <span className="w-full text-sm text-bark-500" data-testid="invitation-mail">E-mail on its way.</span>;
 }
 
 export default withQueryClient(InvitationsPanel);

@@ -1,6 +1,7 @@
 import { z } from 'zod';
 import { emailSchema } from './account';
 import { roleSchema } from './property';
+import type { MailDelivery } from './mail-delivery';
 import type { Role } from './roles';
 
 export const createInvitationSchema = z.object({
@@ -22,4 +23,6 @@ export type Invitation = {
   createdAt: string;
   expiresAt: string;
   expired: boolean;
+  /** The invitation e-mail's delivery, or null when its outbox entry is gone. */
+  mail: MailDelivery | null;
 };

@@ -1,6 +1,7 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { closeDb, db, ensureMigrated } from '../../../src/lib/server/db';
 import { ConflictError, ForbiddenError, GoneError, NotFoundError } from '../../../src/lib/server/http';
+import { sendNextDueMail } from '../../../src/lib/server/mail/outbox';
 import { listAuditForProperty } from '../../../src/lib/server/repos/audit-log';
 import {
   acceptInvitation, createInvitation, findInvitationByToken, hashToken, listPendingInvitations, revokeInvitation,
@@ -47,6 +48,26 @@ describe('invitations', () => {
     expect(mail.to).toBe(invitee.email);
     expect(mail.text).toContain(`http://127.0.0.1:4321/invitations/accept?token=${token}`);
     expect(Date.parse(invitation.expiresAt) - Date.parse(invitation.createdAt)).toBe(7 * 24 * 3_600_000);
+  });
+
+  it('shows the invitation e-mail’s delivery: queued, refused and retried, then failed', async () => {
+    const invitee = await person('unreachable');
+    const { invitation } = await invite(invitee.email, 'crew');
+    expect(invitation.mail).toEqual({ status: 'queued', attempts: 0, lastError: null, nextAttemptAt: null });
+    // Only this message is due, so the worker's next pick is ours.
+    await db()('outbox').whereNot({ id: db()('invitations').where({ id: invitation.id }).select('outbox_id') }).update({ status: 'sent' });
+    const mailOf = async () => (await listPendingInvitations(propertyId)).find((i) => i.id === invitation.id)?.mail;
+    // Port 1 on loopback: nothing listens, the connection is refused.
+    const refused = { smtpUrl: 'smtp://127.0.0.1:1', maxAttempts: 2 };
+    await sendNextDueMail({ ...refused, now: new Date() });
+    const retrying = await mailOf();
+    expect(retrying).toMatchObject({ status: 'queued', attempts: 1 });
+    expect(retrying?.lastError).toMatch(/ECONNREFUSED|connect/i);
+    expect(Date.parse(retrying!.nextAttemptAt!)).toBeGreaterThan(Date.now());
+    await sendNextDueMail({ ...refused, now: new Date(Date.now() + 24 * 3_600_000) });
+    const failed = await mailOf();
+    expect(failed).toMatchObject({ status: 'failed', attempts: 2, nextAttemptAt: null });
+    expect(failed?.lastError).toMatch(/^Gave up after 2 attempts/);
   });
 
   it('adds the membership with the invited role once, then refuses the same link', async () => {

@@ -1,6 +1,7 @@
 import { createHash, randomBytes } from 'node:crypto';
 import type { Knex } from 'knex';
 import type { Invitation } from '../../schemas/invitation';
+import type { MailDelivery } from '../../schemas/mail-delivery';
 import { hasRole, type Role } from '../../schemas/roles';
 import { getConfig } from '../config';
 import { db } from '../db';
@@ -21,9 +22,12 @@ type InvitationRow = {
   accepted_at: string | null;
   revoked_at: string | null;
   created_at: string;
+  outbox_id: number | null;
 };
 
-function rowToInvitation(row: InvitationRow & { invited_by_name?: string | null }, now: Date): Invitation {
+type MailColumns = { mail_status: MailDelivery['status'] | null; mail_attempts: number | null; mail_last_error: string | null; mail_next_attempt_at: string | null };
+
+function rowToInvitation(row: InvitationRow & { invited_by_name?: string | null } & Partial<MailColumns>, now: Date): Invitation {
   return {
     id: row.id,
     email: row.email,
@@ -32,6 +36,9 @@ function rowToInvitation(row: InvitationRow & { invited_by_name?: string | null 
     createdAt: row.created_at,
     expiresAt: row.expires_at,
     expired: Date.parse(row.expires_at) <= now.getTime(),
+    mail: row.mail_status
+      ? { status: row.mail_status, attempts: row.mail_attempts ?? 0, lastError: row.mail_last_error ?? null, nextAttemptAt: row.mail_status === 'queued' ? (row.mail_next_attempt_at ?? null) : null }
+      : null,
   };
 }
 
@@ -82,26 +89,29 @@ export async function createInvitation(input: {
       { propertyId, userId: invitedBy.id, action: 'invitation.create', entityType: 'invitation', entityId: invitation.id, detail: { email, role, replaced } },
       trx,
     );
-    await enqueueMail(
+    const outboxId = await enqueueMail(
       invitationMail({
         to: email, propertyName: property.name as string, inviterName: invitedBy.name, role, expiresAt,
         acceptUrl: absoluteUrl(`/invitations/accept?token=${encodeURIComponent(token)}`, input.origin),
       }),
       trx,
     );
-    return { invitation: rowToInvitation({ ...invitation, invited_by_name: invitedBy.name }, now), token };
+    await trx('invitations').where({ id: invitation.id }).update({ outbox_id: outboxId });
+    const mail: MailColumns = { mail_status: 'queued', mail_attempts: 0, mail_last_error: null, mail_next_attempt_at: null };
+    return { invitation: rowToInvitation({ ...invitation, invited_by_name: invitedBy.name, ...mail }, now), token };
   });
 }
 
 /** Invitations not yet accepted or revoked, newest first; expired ones are marked so. */
 export async function listPendingInvitations(propertyId: number, now = new Date(), trx: Knex = db()): Promise<Invitation[]> {
-  const rows = await trx<InvitationRow & { invited_by_name: string | null }>('invitations as i')
+  const rows = await trx<InvitationRow & { invited_by_name: string | null } & MailColumns>('invitations as i')
     .leftJoin('users as u', 'u.id', 'i.invited_by')
+    .leftJoin('outbox as o', 'o.id', 'i.outbox_id')
     .where('i.property_id', propertyId)
     .whereNull('i.accepted_at')
     .whereNull('i.revoked_at')
     .orderBy('i.id', 'desc')
-    .select('i.*', 'u.name as invited_by_name');
+    .select('i.*', 'u.name as invited_by_name', 'o.status as mail_status', 'o.attempts as mail_attempts', 'o.last_error as mail_last_error', 'o.next_attempt_at as mail_next_attempt_at');
   return rows.map((row) => rowToInvitation(row, now));
 }
 
