@@ -1,10 +1,12 @@
-// Bundles the terrain worker beside the built server (dist/workers/), since Astro's build only
-// bundles what pages and endpoints import. npm packages stay external, loaded from node_modules.
+// Bundles the worker threads (terrain runs, crossing analysis) beside the built server
+// (dist/workers/), since Astro's build only bundles what pages and endpoints import. npm packages
+// stay external, loaded from node_modules.
 import { build } from 'esbuild';
 
 await build({
-  entryPoints: ['src/lib/server/jobs/terrain-worker.ts'],
-  outfile: 'dist/workers/terrain-worker.mjs',
+  entryPoints: ['src/lib/server/jobs/terrain-worker.ts', 'src/lib/server/jobs/analysis-worker.ts'],
+  outdir: 'dist/workers',
+  outExtension: { '.js': '.mjs' },
   bundle: true,
   platform: 'node',
   format: 'esm',
@@ -13,4 +15,4 @@ await build({
   sourcemap: true,
   logLevel: 'warning',
 });
-console.log('Built dist/workers/terrain-worker.mjs');
+console.log('Built dist/workers/terrain-worker.mjs and analysis-worker.mjs');

@@ -39,6 +39,31 @@ describe('migrations', () => {
     await db()('users').where({ id: user.id }).delete();
   });
 
+  it('copies the list figures of designs stored before they had columns of their own', async () => {
+    await ensureMigrated();
+    const source = { migrationSource: bundledMigrations() };
+    const migrations = await source.migrationSource.getMigrations([]);
+    const at = migrations.indexOf('20261205000400_crossing_design_figures.ts');
+    expect(at).toBeGreaterThan(0);
+    while ((await db().migrate.currentVersion(source)) !== migrations[at - 1]!.slice(0, 14)) await db().migrate.down(source);
+    const now = '2026-12-01T10:00:00.000Z';
+    const [user] = await db()('users').insert({ email: 'figures-mig@test.example', name: 'M', password_hash: 'x', created_at: now, updated_at: now }).returning('id');
+    const [property] = await db()('properties').insert({ name: 'Old designs', crs: 'EPSG:7854', created_at: now, updated_at: now }).returning('id');
+    const [fence] = await db()('fence_lines')
+      .insert({ property_id: property.id, name: 'F', status: 'planned', geometry: '{}', length_m: 1, wire_spec: '{}', min_lon: 0, min_lat: 0, max_lon: 0, max_lat: 0, created_at: now, updated_at: now })
+      .returning('id');
+    const crossing = { property_id: property.id, fence_line_id: fence.id, kind: 'crossing', lon: 0, lat: 0, chainage_m: 1 };
+    const design = { status: 'designed', provisional: true, floods: { levelM: 101.25 }, layout: { style: 'separate', floodgate: { lengthM: 18.5 } }, profile: [1, 2, 3] };
+    const [designed] = await db()('crossings').insert({ ...crossing, design: JSON.stringify(design) }).returning('id');
+    const [bare] = await db()('crossings').insert({ ...crossing, design: null }).returning('id');
+    await db().migrate.latest(source);
+    const figures = ['design_provisional', 'design_style', 'design_flood_level_m', 'design_floodgate_length_m'];
+    expect(await db()('crossings').where({ id: designed.id }).first(...figures)).toEqual({ design_provisional: 1, design_style: 'separate', design_flood_level_m: 101.25, design_floodgate_length_m: 18.5 });
+    expect(await db()('crossings').where({ id: bare.id }).first(...figures)).toEqual({ design_provisional: 0, design_style: null, design_flood_level_m: null, design_floodgate_length_m: null });
+    await db()('properties').where({ id: property.id }).delete();
+    await db()('users').where({ id: user.id }).delete();
+  });
+
   it('turns on WAL and foreign keys for the connection', async () => {
     await ensureMigrated();
     const [journal] = await db().raw('PRAGMA journal_mode');

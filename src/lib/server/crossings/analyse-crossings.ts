@@ -1,37 +1,21 @@
-import { designCrossing, type CrossingDesign } from '../../crossings/design-crossing';
-import { findCrossings } from '../../crossings/geometry/find-crossings';
-import type { Crossing } from '../../crossings/geometry/types';
-import { crossingInputsSchema, DEFAULT_DESIGN_SETTINGS, type CrossingInputs } from '../../schemas/crossing';
-import type { FenceLine } from '../../schemas/plan';
 import { db } from '../db';
-import { NotFoundError } from '../http';
-import { listFenceLines } from '../repos/fence-lines';
-import { getPropertySettings } from '../repos/property-settings';
-import { catchmentFiguresAt, profileAlong } from '../terrain/terrain-queries';
-import { positionsOfLayout, type LayoutPositions } from '../../crossings/layout-positions';
-import { crossingRow } from './crossing-row';
+import { computeInWorker } from '../jobs/analysis-jobs';
+import { matchingCrossing, type ComputedCrossings } from './compute-crossing-rows';
 
-type DrainageRow = { id: number; property_id: number; geometry: string; stream_order: number; upstream_area_start_m2: number; upstream_area_end_m2: number; mean_slope: number };
-type OldCrossing = { id: number; fence_line_id: number; drainage_line_id: number | null; kind: string; chainage_m: number; inputs: string };
-
-/** A stored design: the core's design plus what the map and exports need. */
-export type StoredDesign = CrossingDesign & {
-  profile?: { chainageM: number; elevationM: number | null }[];
-  positions?: LayoutPositions;
-  catchment?: { areaHa: number; longestFlowPathM: number; equalAreaSlopeMPerKm: number; outlet: [number, number] } | null;
-};
+export type { StoredDesign } from './compute-crossing-rows';
 
 /**
  * Finds and designs the crossings of a property's fence lines (all of them, or the ones named)
  * against its drainage lines, and stores them in one transaction, replacing the earlier ones of
  * those fence lines. What a person entered for a crossing (flood mark, roughness, style…) is
- * carried over to the crossing found again at the same place.
+ * carried over to the crossing found again at the same place. The finding and designing run in a
+ * worker thread, so requests keep being answered meanwhile; the writing is done here.
  */
 export function analyseCrossings(propertyId: number, fenceLineIds?: number[]): Promise<{ crossings: number; designed: number }> {
   // One analysis of a property at a time: a terrain run finishing while a fence is edited must
   // not interleave two writes of the same crossings.
   const previous = queues.get(propertyId) ?? Promise.resolve();
-  const next = previous.catch(() => undefined).then(() => analyse(propertyId, fenceLineIds));
+  const next = previous.catch(() => undefined).then(async () => store(await computeInWorker(propertyId, fenceLineIds)));
   const tail = next.catch(() => undefined);
   queues.set(propertyId, tail);
   void tail.then(() => queues.get(propertyId) === tail && queues.delete(propertyId));
@@ -40,73 +24,8 @@ export function analyseCrossings(propertyId: number, fenceLineIds?: number[]): P
 
 const queues = new Map<number, Promise<unknown>>();
 
-async function analyse(propertyId: number, fenceLineIds?: number[]): Promise<{ crossings: number; designed: number }> {
-  const settings = { ...DEFAULT_DESIGN_SETTINGS, ...(await getPropertySettings(propertyId)).designSettings };
-  const ifd = (await getPropertySettings(propertyId)).ifdTable;
-  const fences = (await listFenceLines(propertyId)).filter((fence) => fence.status !== 'retired' && (!fenceLineIds || fenceLineIds.includes(fence.id)));
-  const drainageRows = await db()<DrainageRow>('drainage_lines').where({ property_id: propertyId });
-  const drainage = drainageRows.map((row) => ({
-    id: row.id,
-    coordinates: (JSON.parse(row.geometry) as { coordinates: [number, number][] }).coordinates,
-    streamOrder: row.stream_order,
-    upstreamAreaStartM2: row.upstream_area_start_m2,
-    upstreamAreaEndM2: row.upstream_area_end_m2,
-  }));
-  const slopeOf = new Map(drainageRows.map((row) => [row.id, row.mean_slope]));
-  const found = fences.length && drainage.length ? findCrossings(fences, drainage, { goodWithinDeg: settings.goodWithinDeg, fairWithinDeg: settings.fairWithinDeg }) : { crossings: [], runsAlong: [] };
-
-  const fenceIds = fences.map((fence) => fence.id);
-  const old = fenceIds.length ? await db()<OldCrossing>('crossings').whereIn('fence_line_id', fenceIds).select('id', 'fence_line_id', 'drainage_line_id', 'kind', 'chainage_m', 'inputs') : [];
-  // The same crossing found again (same fence and drainage line, within 30 m along the fence)
-  // keeps its id and what the person entered for it.
-  const matchOf = (fenceId: number, drainageId: number, chainageM: number) =>
-    old.find((row) => row.fence_line_id === fenceId && row.drainage_line_id === drainageId && Math.abs(row.chainage_m - chainageM) < 30);
-  const inputsFor = (crossing: Crossing): CrossingInputs => {
-    const match = matchOf(Number(crossing.fenceId), Number(crossing.drainageId), crossing.fenceChainageM);
-    const parsed = crossingInputsSchema.safeParse(match ? JSON.parse(match.inputs) : {});
-    return parsed.success ? parsed.data : {};
-  };
-
-  const rows: Record<string, unknown>[] = [];
-  let designed = 0;
-  for (const fence of fences) {
-    const own = found.crossings.filter((crossing) => crossing.fenceId === fence.id);
-    const profile = own.some((crossing) => crossing.kind === 'crossing') ? await fenceProfile(propertyId, fence) : null;
-    for (const crossing of own) {
-      // Each design is a few milliseconds of arithmetic; between them the server answers others.
-      await new Promise((resolve) => setImmediate(resolve));
-      const inputs = inputsFor(crossing);
-      const design =
-        crossing.kind === 'crossing' && profile
-          ? await designAt(propertyId, fence, crossing, inputs, profile, slopeOf.get(Number(crossing.drainageId)) ?? 0, settings, ifd).catch(
-              (error: unknown): StoredDesign => {
-                // One crossing that cannot be designed must not stop the others: it says why.
-                if (!(error instanceof RangeError)) console.error(`[gullyline] crossing on fence ${fence.id} at ${crossing.fenceChainageM.toFixed(0)} m:`, error);
-                return { status: 'failed', problem: error instanceof RangeError ? error.message : 'This crossing could not be designed because of an error on our side.', cautions: [] };
-              },
-            )
-          : null;
-      if (design?.status === 'designed') designed += 1;
-      rows.push(crossingRow({ propertyId, crossing, design, inputs, computedAt: new Date().toISOString() }));
-    }
-  }
-  for (const along of found.runsAlong) {
-    const fence = fences.find((f) => f.id === along.fenceId)!;
-    const at = fence.coordinates[0]!;
-    rows.push({
-      property_id: propertyId,
-      fence_line_id: fence.id,
-      drainage_line_id: Number(along.drainageId),
-      kind: 'runs-along',
-      lon: at[0],
-      lat: at[1],
-      chainage_m: along.fromChainageM,
-      inputs: '{}',
-      design: JSON.stringify({ fromChainageM: along.fromChainageM, toChainageM: along.toChainageM, lengthM: along.lengthM }),
-      design_status: 'runs-along',
-      computed_at: new Date().toISOString(),
-    });
-  }
+async function store({ rows, designed, old }: ComputedCrossings): Promise<{ crossings: number; designed: number }> {
+  const matchOf = (fenceId: number, drainageId: number, chainageM: number) => matchingCrossing(old, fenceId, drainageId, chainageM);
   await db().transaction(async (trx) => {
     const kept = new Set<number>();
     for (const row of rows) {
@@ -122,54 +41,5 @@ async function analyse(propertyId: number, fenceLineIds?: number[]): Promise<{ c
     if (gone.length) await trx('crossings').whereIn('id', gone).delete();
   });
   return { crossings: rows.length, designed };
-}
-
-type FenceProfile = { samples: { chainageM: number; position: [number, number]; elevationM: number | null }[] } | null;
-
-async function fenceProfile(propertyId: number, fence: FenceLine): Promise<FenceProfile> {
-  try {
-    return await profileAlong(propertyId, fence.coordinates, 1);
-  } catch (error) {
-    if (error instanceof NotFoundError) return null; // no processed model covers the fence
-    throw error;
-  }
-}
-
-async function designAt(
-  propertyId: number,
-  fence: FenceLine,
-  crossing: Crossing,
-  inputs: CrossingInputs,
-  profile: NonNullable<FenceProfile>,
-  channelSlope: number,
-  settings: typeof DEFAULT_DESIGN_SETTINGS,
-  ifd: Awaited<ReturnType<typeof getPropertySettings>>['ifdTable'],
-): Promise<StoredDesign> {
-  // The crossing's chainage on the profile: the sample nearest the crossing point.
-  const [lon, lat] = crossing.position;
-  let nearest = profile.samples[0]!;
-  for (const sample of profile.samples) {
-    if (Math.hypot(sample.position[0] - lon, sample.position[1] - lat) < Math.hypot(nearest.position[0] - lon, nearest.position[1] - lat)) nearest = sample;
-  }
-  // A little wider than the section's half-width, so the section is never cut short by the window.
-  const window = profile.samples.filter((s) => Math.abs(s.chainageM - nearest.chainageM) <= settings.profileHalfWidthM + 5);
-  const catchment = await catchmentFiguresAt(propertyId, crossing.position, 30).catch(() => null);
-  const design = designCrossing({
-    profile: window.map(({ chainageM, elevationM }) => ({ chainageM, elevationM })),
-    crossingChainageM: nearest.chainageM,
-    crossingAngleDeg: crossing.crossingAngleDeg,
-    channelSlope,
-    catchment: catchment && { areaKm2: catchment.areaKm2, mainStreamLengthKm: catchment.longestFlowPathM / 1000, equalAreaSlopeMPerKm: catchment.equalAreaSlopeMPerKm },
-    ifd,
-    fence: fence.wireSpec,
-    inputs,
-    settings,
-  });
-  return {
-    ...design,
-    profile: window.map(({ chainageM, elevationM }) => ({ chainageM, elevationM })),
-    positions: design.status === 'designed' ? positionsOfLayout(design.layout, profile.samples) : undefined,
-    catchment: catchment && { areaHa: catchment.areaHa, longestFlowPathM: catchment.longestFlowPathM, equalAreaSlopeMPerKm: catchment.equalAreaSlopeMPerKm, outlet: catchment.outlet },
-  };
 }
 

@@ -1,6 +1,12 @@
 import type { Crossing } from '../../crossings/geometry/types';
 
-type DesignLike = { status: string; catchment?: { areaHa: number } | null } & Record<string, unknown>;
+type DesignLike = {
+  status: string;
+  catchment?: { areaHa: number } | null;
+  provisional?: boolean;
+  floods?: { levelM?: number | null } | null;
+  layout?: { style?: string; floodgate?: { lengthM?: number } | null } | null;
+} & Record<string, unknown>;
 
 /**
  * The `crossings` row of one found crossing and its design (or none): the analysis writes these,
@@ -25,6 +31,11 @@ export function crossingRow(input: { propertyId: number; crossing: Crossing; des
     inputs: JSON.stringify(inputs),
     design: JSON.stringify(design ? { ...design, ...extras } : extras),
     design_status: design?.status ?? (crossing.kind === 'touch' ? 'touch' : 'no-terrain'),
+    // Copies of the figures the crossing list shows, so listing never parses whole designs.
+    design_provisional: Boolean(design?.provisional),
+    design_style: design?.layout?.style ?? null,
+    design_flood_level_m: design?.floods?.levelM ?? null,
+    design_floodgate_length_m: design?.layout?.floodgate?.lengthM ?? null,
     computed_at: computedAt,
   };
 }

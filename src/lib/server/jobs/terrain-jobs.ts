@@ -1,7 +1,4 @@
-import { existsSync } from 'node:fs';
-import path from 'node:path';
-import { pathToFileURL } from 'node:url';
-import { Worker } from 'node:worker_threads';
+import type { Worker } from 'node:worker_threads';
 import { analyseCrossings } from '../crossings/analyse-crossings';
 import { db } from '../db';
 import { getConfig } from '../config';
@@ -10,6 +7,7 @@ import { replaceDrainageLines } from '../repos/drainage-lines';
 import { findRunById, getElevationModelFile, listRunsWithStatus, updateRunProgress, updateTerrainRun } from '../repos/terrain';
 import { dataPath, removeQuietly, terrainRunFolder } from '../storage';
 import type { TerrainRunInput } from '../terrain/run-terrain';
+import { startWorker } from './start-worker';
 import type { WorkerMessage } from './terrain-worker';
 
 /**
@@ -177,9 +175,5 @@ async function recordFailure(runId: number, message: string): Promise<void> {
  * source (vitest, dev, benchmarks), the TypeScript module loaded through tsx's loader.
  */
 export function createTerrainWorker(input: TerrainRunInput): Worker {
-  const built = path.resolve(path.dirname(process.argv[1] ?? '.'), '../workers/terrain-worker.mjs');
-  if (import.meta.env?.PROD && existsSync(built)) return new Worker(built, { workerData: input });
-  const source = pathToFileURL(path.resolve('src/lib/server/jobs/terrain-worker.ts')).href;
-  const bootstrap = `import('tsx/esm/api').then(({ register }) => { register(); return import(${JSON.stringify(source)}); });`;
-  return new Worker(bootstrap, { eval: true, workerData: input });
+  return startWorker('terrain-worker', input);
 }

@@ -75,27 +75,35 @@ function rowToSummary(row: Omit<CrossingRow, 'inputs' | 'design'>, figures: Desi
 const selectRows = (trx: Knex) =>
   trx<CrossingRow>('crossings as c').join('fence_lines as f', 'f.id', 'c.fence_line_id').select('c.*', 'f.name as fence_name');
 
-type SummaryRow = Omit<CrossingRow, 'inputs' | 'design'> & { provisional: number | null; style: string | null; flood_level_m: number | null; floodgate_length_m: number | null };
+type SummaryRow = Omit<CrossingRow, 'inputs' | 'design'> & {
+  design_provisional: number;
+  design_style: string | null;
+  design_flood_level_m: number | null;
+  design_floodgate_length_m: number | null;
+};
+
+const SUMMARY_COLUMNS = [
+  'id', 'property_id', 'fence_line_id', 'drainage_line_id', 'kind', 'lon', 'lat', 'chainage_m', 'angle_deg', 'angle_class', 'upstream_area_m2',
+  'stream_order', 'design_status', 'computed_at', 'design_provisional', 'design_style', 'design_flood_level_m', 'design_floodgate_length_m',
+];
 
 /**
- * Every crossing of a property as the list and the map show it. Only the four design figures a
- * summary needs are read (by SQLite), not the whole design with its profile.
+ * Every crossing of a property as the list and the map show it: the design figures a summary
+ * needs are columns of their own (written with the design), so no design JSON is read.
  */
 export async function listCrossings(propertyId: number, trx: Knex = db()): Promise<CrossingSummary[]> {
   const rows: SummaryRow[] = await trx('crossings as c')
     .join('fence_lines as f', 'f.id', 'c.fence_line_id')
-    .select(
-      ...['id', 'property_id', 'fence_line_id', 'drainage_line_id', 'kind', 'lon', 'lat', 'chainage_m', 'angle_deg', 'angle_class', 'upstream_area_m2', 'stream_order', 'design_status', 'computed_at'].map((column) => `c.${column}`),
-      'f.name as fence_name',
-      trx.raw("json_extract(c.design, '$.provisional') as provisional"),
-      trx.raw("json_extract(c.design, '$.layout.style') as style"),
-      trx.raw("json_extract(c.design, '$.floods.levelM') as flood_level_m"),
-      trx.raw("json_extract(c.design, '$.layout.floodgate.lengthM') as floodgate_length_m"),
-    )
+    .select(...SUMMARY_COLUMNS.map((column) => `c.${column}`), 'f.name as fence_name')
     .where('c.property_id', propertyId)
     .orderBy([{ column: 'c.fence_line_id' }, { column: 'c.chainage_m' }]);
   return rows.map((row) =>
-    rowToSummary(row, { provisional: Boolean(row.provisional), style: row.style, floodLevelM: row.flood_level_m, floodgateLengthM: row.floodgate_length_m }),
+    rowToSummary(row, {
+      provisional: Boolean(row.design_provisional),
+      style: row.design_style,
+      floodLevelM: row.design_flood_level_m,
+      floodgateLengthM: row.design_floodgate_length_m,
+    }),
   );
 }
 
