@@ -61,7 +61,7 @@ export function CrossingInputsForm({ propertyId, crossing, formRef }: Props) {
     save.mutate(changes);
   };
 
-  const field = (key: NumberField | 'style') => ({
+  const field = (key: NumberField | 'style' | 'debris') => ({
     id: `${idPrefix}-${key}`,
     'aria-invalid': errors[key] ? true : undefined,
     'aria-describedby': `${idPrefix}-${key}-hint${errors[key] ? ` ${idPrefix}-${key}-error` : ''}`,
@@ -109,6 +109,23 @@ export function CrossingInputsForm({ propertyId, crossing, formRef }: Props) {
           {errors.style && (
             <p id={`${idPrefix}-style-error`} className="field-error" role="alert">
               {errors.style}
+            </p>
+          )}
+        </div>
+        <div className="field">
+          <label htmlFor={`${idPrefix}-debris`}>Expected debris</label>
+          <select {...field('debris')} value={values.debris} onChange={(event) => setValues({ ...values, debris: event.target.value as InputsFormValues['debris'] })}>
+            <option value="">The property’s setting{defaults.debris ? ` (${defaults.debris})` : ''}</option>
+            <option value="light">Light: grass and small sticks</option>
+            <option value="moderate">Moderate: branches and some logs</option>
+            <option value="heavy">Heavy: logs, whole shrubs, fence wreckage</option>
+          </select>
+          <p id={`${idPrefix}-debris-hint`} className="text-xs text-bark-700">
+            What a flood here carries down to the fence, from the debris left after past floods. Heavy debris favours a drop-down section.
+          </p>
+          {errors.debris && (
+            <p id={`${idPrefix}-debris-error`} className="field-error" role="alert">
+              {errors.debris}
             </p>
           )}
         </div>

@@ -1,4 +1,4 @@
-import { crossingInputsSchema } from '../../../lib/schemas/crossing';
+import { crossingInputsSchema, type DebrisLevel } from '../../../lib/schemas/crossing';
 import type { CrossingDetailView, CrossingInputsChange, CrossingStyle } from '../../../lib/schemas/crossing-view';
 import { isDesigned } from './is-designed';
 
@@ -14,11 +14,11 @@ export const NUMBER_FIELDS: { key: NumberField; label: string; hint: string; exa
   { key: 'freeboardM', label: 'Freeboard (m)', hint: 'Extra height above the flood level for the wet zone.', example: '0.3' },
 ];
 
-/** The form's fields as typed: text for the numbers, so a half-typed value is kept as it is. */
-export type InputsFormValues = Record<NumberField, string> & { style: CrossingStyle };
+/** The form's fields as typed: text for the numbers, so a half-typed value is kept as it is; debris '' is the property's setting. */
+export type InputsFormValues = Record<NumberField, string> & { style: CrossingStyle; debris: DebrisLevel | '' };
 
 /** A message for each field that is wrong. */
-export type InputsFormErrors = Partial<Record<NumberField | 'style', string>>;
+export type InputsFormErrors = Partial<Record<NumberField | 'style' | 'debris', string>>;
 
 /** The crossing's own inputs as the form shows them, blank where the crossing has none. */
 export function formValuesOf(crossing: CrossingDetailView): InputsFormValues {
@@ -31,11 +31,12 @@ export function formValuesOf(crossing: CrossingDetailView): InputsFormValues {
     aepPercent: text(crossing.inputs.aepPercent),
     freeboardM: text(crossing.inputs.freeboardM),
     style: crossing.inputs.style ?? (isDesigned(crossing.design) ? crossing.design.used?.style : undefined) ?? 'continuous-floodgate',
+    debris: crossing.inputs.debris ?? '',
   };
 }
 
 /** What the design used where the crossing's own input is blank (the property's settings). */
-export function propertyDefaultsOf(crossing: CrossingDetailView): Partial<Record<NumberField, string>> & { aepChoices?: number[] } {
+export function propertyDefaultsOf(crossing: CrossingDetailView): Partial<Record<NumberField | 'debris', string>> & { aepChoices?: number[] } {
   const design = crossing.design;
   const used = isDesigned(design) ? design.used : undefined;
   const floods = design && 'floods' in design ? design.floods : undefined;
@@ -44,6 +45,8 @@ export function propertyDefaultsOf(crossing: CrossingDetailView): Partial<Record
     channelN: used?.channelN?.toString(),
     overbankN: used?.overbankN?.toString(),
     freeboardM: used?.freeboardM?.toString(),
+    // With the crossing's own level blank, the design used the property's.
+    debris: crossing.inputs.debris ? undefined : used?.debris?.toString(),
     runoffCoefficient: flood?.inputs?.runoffCoefficient?.toString(),
     aepPercent: flood?.aepPercent.toString(),
     aepChoices: flood?.inputs?.ifd?.aepPercent,
@@ -74,6 +77,7 @@ export function collectInputChanges(values: InputsFormValues, initial: InputsFor
     numbers[field.key] = value;
   }
   if (values.style !== initial.style) changes.style = values.style;
+  if (values.debris !== initial.debris) changes.debris = values.debris === '' ? null : values.debris;
   // The same checks as the server, for an answer before the round trip.
   const checked = crossingInputsSchema.safeParse(numbers);
   if (!checked.success) {
