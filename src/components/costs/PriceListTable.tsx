@@ -79,7 +79,10 @@ const editable = (field: Editable, size: string) =>
     cell: (ctx) => <EditableCell field={field} row={ctx.row.original} index={ctx.row.index} meta={ctx.table.options.meta as Meta} />,
   });
 
-/** The price list as a sortable table; editors change cells in place, add and remove rows. */
+/**
+ * The price list as a sortable table; editors change cells in place, add and remove rows. On a
+ * phone each row is a card of labelled fields instead, so nothing hides past the screen's edge.
+ */
 export function PriceListTable({ rows, canEdit, errors, onChange, onRemove }: Props) {
   const [sorting, setSorting] = useState<SortingState>([]);
   const columns = useMemo(
@@ -122,9 +125,9 @@ export function PriceListTable({ rows, canEdit, errors, onChange, onRemove }: Pr
   });
 
   return (
-    <div className="overflow-x-auto">
-      <table className="w-full border-collapse text-left" data-testid="price-list-table">
-        <thead>
+    <div className="sm:overflow-x-auto">
+      <table className="w-full border-collapse text-left max-sm:block" data-testid="price-list-table">
+        <thead className="max-sm:sr-only">
           {table.getHeaderGroups().map((group) => (
             <tr key={group.id} className="border-b border-sand-300 text-sm text-bark-500">
               {group.headers.map((header) => {
@@ -146,19 +149,26 @@ export function PriceListTable({ rows, canEdit, errors, onChange, onRemove }: Pr
             </tr>
           ))}
         </thead>
-        <tbody>
+        <tbody className="max-sm:flex max-sm:flex-col max-sm:gap-3">
           {table.getRowModel().rows.map((row) => (
-            <tr key={row.id} className="border-b border-sand-200 align-top" data-testid="price-row">
-              {row.getVisibleCells().map((cell) => (
-                <td key={cell.id} className="py-1.5 pr-2">
-                  {flexRender(cell.column.columnDef.cell, cell.getContext())}
-                </td>
-              ))}
+            <tr key={row.id} className="border-b border-sand-200 align-top max-sm:block max-sm:rounded-lg max-sm:border max-sm:p-3" data-testid="price-row">
+              {row.getVisibleCells().map((cell) => {
+                const header = cell.column.columnDef.header;
+                return (
+                  <td
+                    key={cell.id}
+                    data-label={typeof header === 'string' ? header : undefined}
+                    className="py-1.5 pr-2 max-sm:block max-sm:pr-0 max-sm:before:mb-0.5 max-sm:before:block max-sm:before:text-sm max-sm:before:font-semibold max-sm:before:text-bark-700 max-sm:before:content-[attr(data-label)]"
+                  >
+                    {flexRender(cell.column.columnDef.cell, cell.getContext())}
+                  </td>
+                );
+              })}
             </tr>
           ))}
           {rows.length === 0 && (
-            <tr>
-              <td colSpan={columns.length} className="py-4 text-bark-500">
+            <tr className="max-sm:block">
+              <td colSpan={columns.length} className="py-4 text-bark-500 max-sm:block">
                 The price list is empty: costs show as unpriced until items are added.
               </td>
             </tr>
