@@ -119,7 +119,7 @@ export function samplePlanGeoJson(): string {
     gullylineExport: { formatVersion: 1 },
     features: [
       { type: 'Feature', geometry: { type: 'LineString', coordinates: [[141.5, -31.5], [141.51, -31.5], [141.515, -31.505]] }, properties: { featureType: 'fence-line', name: 'West boundary', status: 'planned' } },
-      { type: 'Feature', geometry: { type: 'LineString', coordinates: [[141.52, -31.5], [141.53, -31.51]] }, properties: { featureType: 'fence-line', name: 'Lane', status: 'existing' } },
+      { type: 'Feature', geometry: { type: 'LineString', coordinates: [[141.52, -31.5], [141.53, -31.51]] }, properties: { featureType: 'fence-line', name: 'Lane', status: 'built' } },
       { type: 'Feature', geometry: { type: 'Polygon', coordinates: [[[141.5, -31.5], [141.51, -31.5], [141.51, -31.49], [141.5, -31.5]]] }, properties: { featureType: 'paddock', name: 'Front' } },
       { type: 'Feature', geometry: { type: 'Point', coordinates: [141.505, -31.5] }, properties: { featureType: 'crossing' } },
     ],
