@@ -132,6 +132,10 @@ describe('killed during a terrain run, with an upload arriving', () => {
     const run = await getRun(killedRunId);
     expect(run.status).toBe('failed');
     expect(run.message).toMatch(/restarted.*Start it again/);
+    // The Terrain panel reads the model list: its latest run says the same.
+    const models = await client.json<{ elevationModels: { id: number; latestRun: Run | null }[] }>('GET', `/api/properties/${propertyId}/elevation-models`);
+    const latest = models.body.elevationModels.find((model) => model.id === modelId)?.latestRun;
+    expect(latest).toMatchObject({ id: killedRunId, status: 'failed', message: run.message });
     await withDatabase(async (database) => {
       expect(await integrity(database)).toBe('ok');
       expect(await orphanFiles(database)).toEqual([]);

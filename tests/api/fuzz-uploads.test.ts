@@ -141,6 +141,11 @@ describe('damaged uploads to the built server', () => {
     expect(names.join(' ')).not.toMatch(/root:|lollollol/);
   }, 300_000);
 
+  it('tracks: the most detailed GPX read stays within the memory bound, one past it is refused before parsing', async () => {
+    expect(await send('GPX size', 'a GPX of 45 000 points', 'POST', `/api/properties/${propertyId}/tracks?name=long.gpx`, utf8(sampleGpx(45_000)), 'application/gpx+xml')).toBe(201);
+    expect(await send('GPX size', 'a GPX of 60 000 points', 'POST', `/api/properties/${propertyId}/tracks?name=longer.gpx`, utf8(sampleGpx(60_000)), 'application/gpx+xml')).toBe(422);
+  }, 120_000);
+
   it('plan import: damaged GeoJSON and KML plans, and hostile XML', async () => {
     const cases = [
       ...mutate(utf8(samplePlanGeoJson()), 20, SEED, { growTo: 300_000 }).map((c) => ({ ...c, name: 'plan.geojson' })),

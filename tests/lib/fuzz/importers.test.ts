@@ -2,7 +2,7 @@
 // error type with a message, never anything else, and never takes long. Files are made by the
 // seeded generator in tests/helpers/fuzz-corpus.ts; a failure names its seed and case, and
 // FUZZ_SEED=<seed> (with FC_SEED=<seed> for the property tests) replays it.
-import { mkdtempSync, rmSync, writeFileSync } from 'node:fs';
+import { mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import fc from 'fast-check';
@@ -15,12 +15,13 @@ import { priceListSchema } from '../../../src/lib/schemas/price-list';
 import { parsePriceListCsv } from '../../../src/lib/schemas/price-list-csv';
 import { ElevationModelError, inspectElevationModel, readElevationModel } from '../../../src/lib/server/elevation/index';
 import { oversizedTiff } from '../../helpers/elevation-fixtures';
+import { runGdal } from '../../helpers/gdal';
 import { fuzzSeed, hostileXml, mutate, sampleGpx, sampleIfdTable, sampleKml, samplePlanGeoJson, samplePlanKml, samplePriceCsv, smallGeoTiff, text, utf8 } from '../../helpers/fuzz-corpus';
 
 const SEED = fuzzSeed();
 const FC = { seed: Number(process.env.FC_SEED ?? SEED), numRuns: 150 };
-/** Longest any one case may take on a busy two-core machine. */
-const CASE_MS = 2000;
+/** Longest any one case may take on a busy two-core machine (the slowest takes under 1 s on an idle one). */
+const CASE_MS = 5000;
 
 /** Runs one case: it either returns or throws `allowed`; anything else fails with the case's label. */
 async function expectOwnErrorOnly(label: string, allowed: (error: unknown) => boolean, run: () => unknown): Promise<'ok' | 'refused'> {
@@ -47,10 +48,23 @@ describe('GeoTIFF reading of damaged files', () => {
   const isModelError = (error: unknown) => error instanceof ElevationModelError;
   const options = { maxCells: 1_000_000 };
 
+  /** The small GeoTIFF compressed by GDAL (Debian gdal-bin's gdal_translate), so damaged compressed pixels reach the decoders. */
+  const compressed = (options: string[]) => {
+    const source = join(dir, 'small.tif');
+    const target = join(dir, `small-${options.join('-').replace(/\W/g, '')}.tif`);
+    writeFileSync(source, smallGeoTiff());
+    runGdal('gdal_translate', ['-q', ...options.flatMap((o) => ['-co', o]), source, target]);
+    return new Uint8Array(readFileSync(target));
+  };
+
   it.each([
-    ['a small Float32 GeoTIFF', smallGeoTiff(), 60],
-    ['an oversized header', oversizedTiff(), 30],
-  ])('%s, truncated, bit-flipped, overwritten and grown: read or refused with an elevation model error', async (name, base, count) => {
+    ['a small Float32 GeoTIFF', () => smallGeoTiff(), 60],
+    ['an oversized header', () => oversizedTiff(), 30],
+    ['an LZW-compressed GeoTIFF', () => compressed(['COMPRESS=LZW']), 30],
+    ['a tiled Deflate GeoTIFF', () => compressed(['COMPRESS=DEFLATE', 'TILED=YES', 'BLOCKXSIZE=16', 'BLOCKYSIZE=16']), 30],
+    ['a PackBits GeoTIFF', () => compressed(['COMPRESS=PACKBITS']), 20],
+  ])('%s, truncated, bit-flipped, overwritten and grown: read or refused with an elevation model error', async (name, make, count) => {
+    const base = make();
     let refused = 0;
     for (const [i, { label, bytes }] of mutate(base, count, SEED, { headerBytes: 400, growTo: 200_000 }).entries()) {
       const file = join(dir, `${name.length}-${i}.tif`);
@@ -87,6 +101,19 @@ describe('GPX and KML reading', () => {
     expect(everything).not.toContain('lollollol');
     expect(everything.length).toBeLessThan(20_000_000);
   }, 30_000);
+
+  it('refuses a file within the upload limit but too detailed to parse, before building it in memory', async () => {
+    for (const [label, xml] of [
+      ['a GPX of 60 000 points (3.8 MB)', sampleGpx(60_000)],
+      ['a KML coordinate string of 600 000 positions', hostileXml({ depth: 1, hugeCoordinates: 600_000 }).find((c) => c.label.startsWith('a coordinate string'))!.text],
+    ] as const) {
+      const started = performance.now();
+      expect(() => importLines(xml), label).toThrow(/too detailed/);
+      expect(performance.now() - started, label).toBeLessThan(500);
+    }
+    // Just inside the budget is read.
+    expect(importLines(sampleGpx(45_000)).lines[0]!.coordinates.length).toBe(45_000);
+  }, 60_000);
 
   it('never throws anything but an import error for arbitrary text and XML-like text', () => {
     const xmlish = fc.array(fc.constantFrom('<kml>', '</kml>', '<gpx>', '<Placemark>', '<LineString>', '<coordinates>', '1,2 3,4', '&amp;', '&lol;', '<![CDATA[', ']]>', '<!DOCTYPE x [', ']>', '<trkpt lat="1" lon="2"/>', '"', '<'), { maxLength: 40 }).map((parts) => parts.join(''));
