@@ -158,6 +158,19 @@ describe('plan import', () => {
     );
   });
 
+  it('refuses a GeoJSON plan within the upload limit but too detailed to check, before parsing it', () => {
+    const plan = (lines: number) => {
+      const coordinates = Array.from({ length: 4000 }, (_, i) => [141.5 + i * 0.00001, -31.5 + (i % 2) * 0.00001]);
+      const features = Array.from({ length: lines }, (_, k) => ({ type: 'Feature', geometry: { type: 'LineString', coordinates }, properties: { featureType: 'fence-line', name: `Line ${k}`, status: 'planned' } }));
+      return JSON.stringify({ type: 'FeatureCollection', features });
+    };
+    const detailed = plan(180);
+    const started = performance.now();
+    expect(() => importPlan(detailed)).toThrow(/too detailed/);
+    expect(performance.now() - started).toBeLessThan(500);
+    expect(importPlan(plan(60)).fenceLines).toHaveLength(60);
+  }, 60_000);
+
   it('reads deeply nested JSON arrays without overflowing the stack', async () => {
     const deep = `{"type":"FeatureCollection","features":[{"type":"Feature","geometry":{"type":"LineString","coordinates":${'['.repeat(100_000)}${']'.repeat(100_000)}},"properties":{"featureType":"fence-line","name":"Deep"}}]}`;
     await expectOwnErrorOnly('deep JSON', isImportError, () => importPlan(deep));
