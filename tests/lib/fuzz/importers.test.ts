@@ -177,6 +177,56 @@ describe('plan import', () => {
   });
 });
 
+describe('fast-check mutations of good files (shrinking to the smallest change that breaks a reader)', () => {
+  /** Edits at positions scaled to the file: flip a bit, set a byte, delete a run, or cut the file there. */
+  const edits = fc.array(
+    fc.record({ at: fc.double({ min: 0, max: 1, noNaN: true }), op: fc.constantFrom('flip', 'set', 'delete', 'cut'), value: fc.integer({ min: 0, max: 255 }), length: fc.integer({ min: 1, max: 16 }) }),
+    { minLength: 1, maxLength: 6 },
+  );
+  const apply = (base: Uint8Array, changes: { at: number; op: string; value: number; length: number }[]) => {
+    let bytes = new Uint8Array(base);
+    for (const { at, op, value, length } of changes) {
+      const i = Math.min(bytes.length - 1, Math.floor(at * bytes.length));
+      if (i < 0) break;
+      if (op === 'flip') bytes[i]! ^= 1 << (value % 8);
+      else if (op === 'set') bytes[i] = value;
+      else if (op === 'delete') bytes = new Uint8Array([...bytes.subarray(0, i), ...bytes.subarray(i + length)]);
+      else bytes = bytes.slice(0, i);
+    }
+    return text(bytes);
+  };
+  const readers: [string, string, (input: string) => unknown][] = [
+    ['GPX', sampleGpx(20), importLines],
+    ['KML', sampleKml(), importLines],
+    ['GeoJSON plan', samplePlanGeoJson(), importPlan],
+    ['KML plan', samplePlanKml(), importPlan],
+  ];
+  it.each(readers)('%s: any few edits are read or refused with an import error', (_name, base, read) => {
+    const bytes = utf8(base);
+    fc.assert(
+      fc.property(edits, (changes) => {
+        try {
+          read(apply(bytes, changes));
+        } catch (error) {
+          if (!(error instanceof ImportError)) throw error;
+        }
+      }),
+      FC,
+    );
+  });
+
+  it('price list CSV: any few edits give an error in words or rows, never a throw', () => {
+    const bytes = utf8(samplePriceCsv());
+    fc.assert(
+      fc.property(edits, (changes) => {
+        const result = parsePriceListCsv(apply(bytes, changes));
+        expect(result.ok ? Array.isArray(result.rows) : result.error.length > 10).toBe(true);
+      }),
+      FC,
+    );
+  });
+});
+
 describe('price list CSV', () => {
   it('never throws for damaged files: an error in words or rows with their problems', () => {
     for (const { label, bytes } of mutate(utf8(samplePriceCsv()), 200, SEED, { growTo: 300_000 })) {
