@@ -4,8 +4,8 @@ import { encodeGeoTiff } from '../../src/lib/server/elevation/write-geotiff';
 
 /** The seed of this run: FUZZ_SEED when set (to replay or explore), else a fixed one. */
 export function fuzzSeed(): number {
-  const fromEnv = Number(process.env.FUZZ_SEED);
-  return Number.isSafeInteger(fromEnv) && process.env.FUZZ_SEED !== '' && process.env.FUZZ_SEED !== undefined ? fromEnv : 20261202;
+  const value = process.env.FUZZ_SEED;
+  return value && Number.isSafeInteger(Number(value)) ? Number(value) : 20261202;
 }
 
 /** Mulberry32: a small, fast 32-bit generator; plenty for choosing where to damage a file. */
