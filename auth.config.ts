@@ -4,6 +4,7 @@ import { signInSchema } from './src/lib/schemas/account';
 import { getConfig } from './src/lib/server/config';
 import { verifyAgainstDecoy, verifyPassword } from './src/lib/server/passwords';
 import { findCredentials } from './src/lib/server/repos/users';
+import { isSessionLive, newSessionId, revokeSession } from './src/lib/server/session';
 
 // Sign-in by e-mail and password; the session is a signed, encrypted JWT in an HttpOnly,
 // SameSite=Lax cookie (Secure and __Secure- prefixed whenever the app is served over https).
@@ -31,7 +32,18 @@ export default defineConfig({
       },
     }),
   ],
+  // Each sign-in gets a session id kept in the token; signing out lists it as revoked, so a copy
+  // of the cookie taken before is refused (returning null from `jwt` clears the session).
+  events: {
+    async signOut(message) {
+      if ('token' in message && message.token) await revokeSession(message.token);
+    },
+  },
   callbacks: {
+    async jwt({ token, user }) {
+      if (user) return { ...token, sid: newSessionId() };
+      return (await isSessionLive(token)) ? token : null;
+    },
     session({ session, token }) {
       if (token.sub) session.user.id = token.sub;
       return session;

@@ -47,7 +47,8 @@ export async function startBuiltServer(dataDir: string, extraEnv: Record<string,
   server.stdout?.on('data', (chunk: Buffer) => (output += chunk.toString()));
   server.stderr?.on('data', (chunk: Buffer) => (output += chunk.toString()));
   const stop = async () => {
-    if (server.exitCode === null) {
+    // A server already gone (exited, or killed by a signal) has nothing left to stop.
+    if (server.exitCode === null && server.signalCode === null) {
       server.kill('SIGTERM');
       await new Promise((resolve) => server.once('exit', resolve));
     }

@@ -11,7 +11,8 @@ export interface IfdTable {
   readonly intensitiesMmH: readonly (readonly number[])[];
 }
 
-const fmt = (value: number): string => String(Number(value.toPrecision(6)));
+// The table may come from anywhere (a form, a file): a value that is not a number is shown as typed.
+const fmt = (value: number): string => (typeof value === 'number' ? String(Number(value.toPrecision(6))) : JSON.stringify(value) ?? String(value));
 
 /**
  * The problems of an IFD table, in words a person can act on; empty when it can be used.

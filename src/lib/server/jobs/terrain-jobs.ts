@@ -48,6 +48,8 @@ export async function recoverTerrainRuns(): Promise<void> {
       message: 'The server restarted while this run was working. Start it again.',
       finishedAt: new Date().toISOString(),
     });
+    // Half-written products of the interrupted run are never read.
+    await removeQuietly(dataPath(terrainRunFolder(run.id)));
   }
   await pickUpQueuedRuns();
   // Runs queued by another process (the demo seed, a second server) are picked up within seconds.

@@ -1,0 +1,232 @@
+// The server killed with SIGKILL (no chance to tidy up) during a terrain run with an upload still
+// arriving, and during a burst of fence line edits; started again on the same data folder, the
+// database is whole, every edit it acknowledged is there, no row is half-written, every file under
+// the data folder belongs to a row, and the interrupted run reads as failed with the reason.
+import { existsSync, mkdtempSync, readdirSync, readFileSync, rmSync } from 'node:fs';
+import { request as httpRequest } from 'node:http';
+import { tmpdir } from 'node:os';
+import path from 'node:path';
+import knex, { type Knex } from 'knex';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { sqliteSettings } from '../../src/lib/server/db';
+import { TestClient, newAccount } from '../helpers/api-client';
+import { startBuiltServer } from '../helpers/global-server';
+
+const DEM = new Uint8Array(readFileSync('data-samples/saltbush-rise-dem.tif'));
+const MANIFEST = JSON.parse(readFileSync('data-samples/saltbush-rise.json', 'utf8')) as { fenceLines: { name: string; pointsLonLat: [number, number][] }[] };
+type Server = Awaited<ReturnType<typeof startBuiltServer>>;
+type Run = { id: number; status: string; stage: string | null; percent: number; message: string | null };
+
+let dataDir = '';
+let server: Server | undefined;
+let client: TestClient;
+let account: ReturnType<typeof newAccount>;
+let propertyId = 0;
+let modelId = 0;
+let killedRunId = 0;
+
+async function start(): Promise<void> {
+  // No per-person limit on heavy requests: the burst below is one person editing fast.
+  server = await startBuiltServer(dataDir, { EXPENSIVE_REQUESTS_PER_MINUTE: '100000' });
+  client = new TestClient(server.baseUrl);
+  await client.signIn(account.email, account.password);
+  expect(client.signedIn).toBe(true);
+}
+
+async function kill(): Promise<void> {
+  const running = server!;
+  const exited = new Promise((resolve) => running.server.once('exit', resolve));
+  running.server.kill('SIGKILL');
+  await exited;
+  await running.stop();
+  server = undefined;
+}
+
+/** Opens the data folder's database beside (or after) the server, runs `use`, and closes it. */
+async function withDatabase<T>(use: (database: Knex) => Promise<T>): Promise<T> {
+  const database = knex(sqliteSettings(path.join(dataDir, 'gullyline.sqlite')));
+  try {
+    return await use(database);
+  } finally {
+    await database.destroy();
+  }
+}
+
+async function getRun(runId: number): Promise<Run> {
+  return (await client.json<{ run: Run }>('GET', `/api/properties/${propertyId}/terrain-runs/${runId}`)).body.run;
+}
+
+async function waitForRun(runId: number, done: (run: Run) => boolean, timeoutMs: number): Promise<Run> {
+  const deadline = Date.now() + timeoutMs;
+  for (;;) {
+    const run = await getRun(runId);
+    if (done(run)) return run;
+    if (Date.now() > deadline) throw new Error(`terrain run ${runId} still ${run.status} ${run.stage} ${run.percent}%`);
+    await new Promise((resolve) => setTimeout(resolve, 100));
+  }
+}
+
+/** Sends the first half of an upload and never the rest, so the server is receiving a file when killed. */
+function halfUpload(): Promise<void> {
+  const url = new URL(`${server!.baseUrl}/api/properties/${propertyId}/elevation-models?name=half.tif`);
+  const cookie = [...(client as unknown as { cookies: Map<string, string> }).cookies].map(([name, value]) => `${name}=${value}`).join('; ');
+  return new Promise((resolve) => {
+    const request = httpRequest(url, { method: 'POST', headers: { Cookie: cookie, Origin: server!.baseUrl, 'Content-Type': 'image/tiff', 'Content-Length': DEM.length } });
+    request.on('error', () => undefined);
+    request.write(DEM.subarray(0, DEM.length / 2), () => resolve());
+  });
+}
+
+/** Files under the data folder that no row owns; an empty list is the goal. */
+async function orphanFiles(database: Knex): Promise<string[]> {
+  const list = (relative: string) => (existsSync(path.join(dataDir, relative)) ? readdirSync(path.join(dataDir, relative)) : []);
+  const orphans = list('uploads/incoming').map((name) => `uploads/incoming/${name}`);
+  const models = await database('elevation_models').select('id', 'stored_file');
+  for (const name of list('elevation-models')) {
+    const model = models.find((m: { id: number }) => String(m.id) === name);
+    if (!model) orphans.push(`elevation-models/${name}`);
+    else for (const file of list(`elevation-models/${name}`)) if (`elevation-models/${name}/${file}` !== model.stored_file) orphans.push(`elevation-models/${name}/${file}`);
+  }
+  const runs = await database('terrain_runs').select('id', 'status');
+  for (const name of list('terrain-runs')) {
+    const run = runs.find((r: { id: number }) => String(r.id) === name);
+    if (!run || !['succeeded', 'running', 'queued'].includes(run.status)) orphans.push(`terrain-runs/${name} (${run?.status ?? 'no run'})`);
+  }
+  return orphans;
+}
+
+async function integrity(database: Knex): Promise<string> {
+  const rows = (await database.raw('PRAGMA integrity_check')) as { integrity_check: string }[];
+  return rows.map((row) => row.integrity_check).join('; ');
+}
+
+beforeAll(async () => {
+  dataDir = mkdtempSync(path.join(tmpdir(), 'gullyline-crash-'));
+  account = newAccount('crash');
+  server = await startBuiltServer(dataDir, { EXPENSIVE_REQUESTS_PER_MINUTE: '100000' });
+  client = new TestClient(server.baseUrl);
+  await client.signUp(account);
+  await client.signIn(account.email, account.password);
+  propertyId = (await client.json<{ property: { id: number } }>('POST', '/api/properties', { name: 'Crash Creek', crs: 'EPSG:7854' })).body.property.id;
+}, 120_000);
+
+afterAll(async () => {
+  await server?.stop();
+  if (dataDir && !process.env.KEEP_TEST_DATA) rmSync(dataDir, { recursive: true, force: true });
+});
+
+describe('killed during a terrain run, with an upload arriving', () => {
+  it('starts again whole: the run reads as failed with the reason, no file is left without its row', async () => {
+    const upload = await client.request('POST', `/api/properties/${propertyId}/elevation-models?name=saltbush.tif`, DEM, { 'Content-Type': 'image/tiff' });
+    expect(upload.status).toBe(201);
+    const accepted = (await upload.json()) as { elevationModel: { id: number }; run: { id: number } };
+    modelId = accepted.elevationModel.id;
+    killedRunId = accepted.run.id;
+    await waitForRun(killedRunId, (run) => run.status === 'running' && run.percent > 0, 60_000);
+    await halfUpload();
+    await new Promise((resolve) => setTimeout(resolve, 200));
+    expect(readdirSync(path.join(dataDir, 'uploads/incoming')).length, 'the half upload is being received').toBeGreaterThan(0);
+    await kill();
+
+    await start();
+    const run = await getRun(killedRunId);
+    expect(run.status).toBe('failed');
+    expect(run.message).toMatch(/restarted.*Start it again/);
+    // The Terrain panel reads the model list: its latest run says the same.
+    const models = await client.json<{ elevationModels: { id: number; latestRun: Run | null }[] }>('GET', `/api/properties/${propertyId}/elevation-models`);
+    const latest = models.body.elevationModels.find((model) => model.id === modelId)?.latestRun;
+    expect(latest).toMatchObject({ id: killedRunId, status: 'failed', message: run.message });
+    await withDatabase(async (database) => {
+      expect(await integrity(database)).toBe('ok');
+      expect(await orphanFiles(database)).toEqual([]);
+      expect(existsSync(path.join(dataDir, `elevation-models/${modelId}/source.tif`))).toBe(true);
+    });
+    // The person starts it again and it finishes.
+    const again = await client.json<{ run: Run }>('POST', `/api/properties/${propertyId}/terrain-runs`, { elevationModelId: modelId });
+    expect(again.status).toBe(201);
+    const finished = await waitForRun(again.body.run.id, (r) => !['queued', 'running'].includes(r.status), 240_000);
+    expect(finished.status).toBe('succeeded');
+  }, 360_000);
+});
+
+describe('killed during a burst of fence line edits', () => {
+  it('keeps every acknowledged edit, no half-written fence line or crossing, and a whole database', async () => {
+    const base = MANIFEST.fenceLines.map((fence) => fence.pointsLonLat);
+    const shift = (points: [number, number][], by: number) => points.map(([lon, lat]) => [lon + by, lat] as [number, number]);
+    // One line per editor, each across the creek, so every edit also redesigns crossings.
+    const lines: { id: number; version: number }[] = [];
+    for (const [i, points] of base.entries()) {
+      const { status, body } = await client.json<{ fenceLine: { id: number; version: number } }>('POST', `/api/properties/${propertyId}/fence-lines`, { name: `Editor ${i}`, coordinates: points });
+      expect(status).toBe(201);
+      lines.push({ id: body.fenceLine.id, version: body.fenceLine.version });
+    }
+    const acknowledged: { kind: 'change' | 'create'; id: number; name: string; version: number }[] = [];
+    let stop = false;
+    const editor = async (i: number) => {
+      const line = lines[i]!;
+      for (let n = 1; !stop; n++) {
+        const name = `Editor ${i} edit ${n}`;
+        const response = await client
+          .json<{ fenceLine: { id: number; version: number } }>('PATCH', `/api/properties/${propertyId}/fence-lines/${line.id}`, { name, version: line.version, coordinates: shift(base[i]!, (n % 3) * 0.00004) })
+          .catch(() => undefined);
+        if (!response) return; // the server is gone
+        if (response.status !== 200) throw new Error(`edit refused: ${response.status} ${JSON.stringify(response.body)}`);
+        line.version = response.body.fenceLine.version;
+        acknowledged.push({ kind: 'change', id: line.id, name, version: line.version });
+      }
+    };
+    const creator = async () => {
+      for (let n = 1; !stop; n++) {
+        const name = `New line ${n}`;
+        const response = await client.json<{ fenceLine: { id: number; version: number } }>('POST', `/api/properties/${propertyId}/fence-lines`, { name, coordinates: shift(base[n % base.length]!, 0.0001 * n) }).catch(() => undefined);
+        if (!response) return;
+        if (response.status !== 201) throw new Error(`create refused: ${response.status} ${JSON.stringify(response.body)}`);
+        acknowledged.push({ kind: 'create', id: response.body.fenceLine.id, name, version: response.body.fenceLine.version });
+      }
+    };
+    const burst = Promise.all([...lines.map((_, i) => editor(i)), creator()]);
+    const deadline = Date.now() + 20_000;
+    while (acknowledged.length < 12 && Date.now() < deadline) await new Promise((resolve) => setTimeout(resolve, 50));
+    // Killed at once, with requests in flight.
+    await kill();
+    stop = true;
+    await burst;
+    expect(acknowledged.length).toBeGreaterThanOrEqual(6);
+    console.log(`killed after ${acknowledged.length} acknowledged edits (${acknowledged.filter((e) => e.kind === 'create').length} new lines)`);
+
+    await start();
+    await withDatabase(async (database) => {
+      expect(await integrity(database)).toBe('ok');
+      const stored = new Map<number, { name: string; version: number; geometry: string }>(
+        (await database('fence_lines').where({ property_id: propertyId }).select('id', 'name', 'version', 'geometry')).map((row: { id: number; name: string; version: number; geometry: string }) => [row.id, row]),
+      );
+      // The last acknowledged state of each line is there, or one edit after it that was in flight.
+      const last = new Map<number, (typeof acknowledged)[number]>();
+      for (const edit of acknowledged) last.set(edit.id, edit);
+      for (const edit of last.values()) {
+        const row = stored.get(edit.id);
+        expect(row, `${edit.kind} "${edit.name}" is stored`).toBeDefined();
+        expect(row!.version).toBeGreaterThanOrEqual(edit.version);
+        if (row!.version === edit.version) expect(row!.name).toBe(edit.name);
+      }
+      for (const row of stored.values()) {
+        const geometry = JSON.parse(row.geometry) as { type: string; coordinates: number[][] };
+        expect(geometry.type).toBe('LineString');
+        expect(geometry.coordinates.length).toBeGreaterThanOrEqual(2);
+        for (const point of geometry.coordinates) expect(point.every(Number.isFinite)).toBe(true);
+      }
+      const strays = await database('crossings').leftJoin('fence_lines', 'fence_lines.id', 'crossings.fence_line_id').whereNull('fence_lines.id').count<{ n: number }[]>({ n: '*' });
+      expect(Number(strays[0]!.n)).toBe(0);
+      const crossings = await database('crossings').where({ property_id: propertyId }).count<{ n: number }[]>({ n: '*' });
+      console.log(`after the restart: ${stored.size} fence lines, ${crossings[0]!.n} crossings`);
+      for (const crossing of await database('crossings').where({ property_id: propertyId }).select('inputs', 'design')) {
+        expect(() => JSON.parse(crossing.inputs)).not.toThrow();
+        if (crossing.design !== null) expect(() => JSON.parse(crossing.design)).not.toThrow();
+      }
+      expect(await orphanFiles(database)).toEqual([]);
+    });
+    // The app works on: the fence lines read back through the API.
+    const listed = await client.json<{ fenceLines: { id: number }[] }>('GET', `/api/properties/${propertyId}/fence-lines`);
+    expect(listed.status).toBe(200);
+  }, 240_000);
+});
