@@ -1,17 +1,56 @@
 import { randomUUID } from 'node:crypto';
-import { getSession } from 'auth-astro/server';
+import { decode, getToken } from '@auth/core/jwt';
 import type { Knex } from 'knex';
 import type { SessionUser } from '../../env';
+import { getConfig } from './config';
 import { db } from './db';
 import { findUserById } from './repos/users';
 
-/** The signed-in user behind a request, or null. A session whose account is gone counts as none. */
+const SECURE_COOKIE = '__Secure-authjs.session-token';
+const PLAIN_COOKIE = 'authjs.session-token';
+
+/**
+ * The signed-in user behind a request, or null: the session cookie decrypted and checked (expiry,
+ * not signed out, the account still there). This reads the cookie directly with Auth.js's own
+ * `getToken`/`decode` rather than running the whole Auth.js session handler on every request.
+ */
 export async function loadSessionUser(request: Request): Promise<SessionUser | null> {
-  const session = await getSession(request);
-  const id = Number(session?.user?.id);
+  const token = await sessionTokenOf(request);
+  if (!token || !(await isSessionLive(token))) return null;
+  const id = Number(token.sub);
   if (!Number.isSafeInteger(id) || id < 1) return null;
   const user = await findUserById(id);
   return user ? { id: user.id, email: user.email, name: user.name } : null;
+}
+
+// Decrypted cookies, briefly: an island's burst of requests decrypts its cookie once. Signing out
+// is still seen at once, since `isSessionLive` is asked on every request.
+const DECODED_FOR_MS = 60_000;
+const MAX_DECODED = 2_000;
+const decoded = new Map<string, { token: SessionToken; until: number }>();
+
+async function sessionTokenOf(request: Request): Promise<SessionToken | null> {
+  const secret = getConfig().authSecret;
+  const secureCookie = (request.headers.get('cookie') ?? '').includes(SECURE_COOKIE);
+  const raw = await getToken({ req: request, secret, secureCookie, raw: true }).catch(() => null);
+  if (!raw) return null;
+  const now = Date.now();
+  const known = decoded.get(raw);
+  if (known && known.until > now) return tokenStillValid(known.token, now) ? known.token : null;
+  let token: SessionToken | null;
+  try {
+    token = (await decode({ token: raw, secret, salt: secureCookie ? SECURE_COOKIE : PLAIN_COOKIE })) as SessionToken | null;
+  } catch {
+    token = null; // tampered, signed with another secret, or expired: signed out
+  }
+  if (!token) return null;
+  if (decoded.size >= MAX_DECODED) decoded.delete(decoded.keys().next().value!);
+  decoded.set(raw, { token, until: now + DECODED_FOR_MS });
+  return token;
+}
+
+function tokenStillValid(token: SessionToken, now: number): boolean {
+  return typeof token.exp !== 'number' || token.exp * 1000 > now;
 }
 
 /** The parts of the session token these checks read (Auth.js carries `sid` through every re-signing). */
