@@ -256,7 +256,9 @@ async function waitForTerrain(dataDir: string, timeoutMs: number): Promise<void>
   try {
     for (;;) {
       const busy = database.prepare("select count(*) as n from terrain_runs where status in ('queued', 'running')").get() as { n: number };
-      if (busy.n === 0) return;
+      // The crossings are designed after the run, in the analysis worker: wait for them too.
+      const crossings = database.prepare('select count(*) as n from crossings').get() as { n: number };
+      if (busy.n === 0 && crossings.n > 0) return;
       if (Date.now() > deadline) throw new Error('The demo terrain run did not finish in time.');
       await new Promise((resolve) => setTimeout(resolve, 250));
     }
