@@ -4,14 +4,14 @@ import { signInSchema } from './src/lib/schemas/account';
 import { getConfig } from './src/lib/server/config';
 import { verifyAgainstDecoy, verifyPassword } from './src/lib/server/passwords';
 import { findCredentials } from './src/lib/server/repos/users';
-import { isSessionLive, newSessionId, revokeSession } from './src/lib/server/session';
+import { isSessionLive, newSessionId, revokeSession, SESSION_MAX_AGE_S } from './src/lib/server/session';
 
 // Sign-in by e-mail and password; the session is a signed, encrypted JWT in an HttpOnly,
 // SameSite=Lax cookie (Secure and __Secure- prefixed whenever the app is served over https).
 export default defineConfig({
   secret: getConfig().authSecret,
   trustHost: true,
-  session: { strategy: 'jwt', maxAge: 14 * 24 * 60 * 60 },
+  session: { strategy: 'jwt', maxAge: SESSION_MAX_AGE_S },
   pages: { signIn: '/sign-in', error: '/sign-in' },
   // A wrong password is an everyday event, counted by the sign-in throttle: not an error to log.
   logger: {

@@ -4,7 +4,7 @@ import { getConfig } from './lib/server/config';
 import { ensureReady } from './lib/server/startup';
 import { DomainError, PayloadTooLargeError, UnauthorizedError, errorResponse, internalErrorResponse } from './lib/server/http';
 import { limitExpensiveRequests } from './lib/server/request-limit';
-import { loadSessionUser } from './lib/server/session';
+import { loadSessionUser, renewedSessionCookie } from './lib/server/session';
 import { throttleSignIn } from './lib/server/sign-in-throttle';
 
 const isApi = (path: string) => path === '/api' || path.startsWith('/api/');
@@ -81,7 +81,13 @@ const limitBodies = defineMiddleware((context, next) => {
 
 const loadUser = defineMiddleware(async (context, next) => {
   context.locals.user = await loadSessionUser(context.request);
-  return next();
+  const response = await next();
+  // A page opened by a signed-in person renews a day-old cookie: a session lasts from the last visit.
+  if (context.locals.user && context.request.method === 'GET' && !isApi(context.url.pathname)) {
+    const renewed = await renewedSessionCookie(context.request);
+    if (renewed) response.headers.append('Set-Cookie', renewed);
+  }
+  return response;
 });
 
 /** Anonymous visitors of /app go to the sign-in page; anonymous API calls get 401 JSON. */

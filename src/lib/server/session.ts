@@ -1,5 +1,5 @@
 import { randomUUID } from 'node:crypto';
-import { decode, getToken } from '@auth/core/jwt';
+import { decode, encode, getToken } from '@auth/core/jwt';
 import type { Knex } from 'knex';
 import type { SessionUser } from '../../env';
 import { getConfig } from './config';
@@ -8,6 +8,11 @@ import { findUserById } from './repos/users';
 
 const SECURE_COOKIE = '__Secure-authjs.session-token';
 const PLAIN_COOKIE = 'authjs.session-token';
+
+/** How long a session lasts from the last page a person opened. */
+export const SESSION_MAX_AGE_S = 14 * 24 * 60 * 60;
+/** A cookie older than this is issued again when a page is opened, so an active session rolls on. */
+const RENEW_AFTER_S = 24 * 60 * 60;
 
 /**
  * The signed-in user behind a request, or null: the session cookie decrypted and checked (expiry,
@@ -49,12 +54,27 @@ async function sessionTokenOf(request: Request): Promise<SessionToken | null> {
   return token;
 }
 
+/**
+ * A fresh session cookie for a signed-in person whose cookie was issued more than a day ago, or
+ * null: the same session (id and person), a new expiry 14 days on. The middleware sends it with
+ * pages, not API answers, which is enough to keep a person who uses the app signed in.
+ */
+export async function renewedSessionCookie(request: Request, now = Date.now()): Promise<string | null> {
+  const token = await sessionTokenOf(request);
+  if (!token || typeof token.iat !== 'number' || now / 1000 - token.iat < RENEW_AFTER_S) return null;
+  const secureCookie = (request.headers.get('cookie') ?? '').includes(SECURE_COOKIE);
+  const name = secureCookie ? SECURE_COOKIE : PLAIN_COOKIE;
+  const { iat: _iat, exp: _exp, jti: _jti, ...kept } = token as Record<string, unknown>;
+  const value = await encode({ token: kept, secret: getConfig().authSecret, salt: name, maxAge: SESSION_MAX_AGE_S });
+  return `${name}=${value}; Path=/; Max-Age=${SESSION_MAX_AGE_S}; HttpOnly; SameSite=Lax${secureCookie ? '; Secure' : ''}`;
+}
+
 function tokenStillValid(token: SessionToken, now: number): boolean {
   return typeof token.exp !== 'number' || token.exp * 1000 > now;
 }
 
 /** The parts of the session token these checks read (Auth.js carries `sid` through every re-signing). */
-export type SessionToken = { sid?: unknown; sub?: unknown; exp?: unknown };
+export type SessionToken = { sid?: unknown; sub?: unknown; exp?: unknown; iat?: unknown };
 
 /** A new session id for a sign-in: it stays the same while the cookie is re-signed on each visit. */
 export function newSessionId(): string {
