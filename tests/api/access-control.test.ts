@@ -195,8 +195,13 @@ describe('sessions', () => {
     const phone = new TestClient();
     await phone.signIn(account.email, account.password);
 
+    // A revoked session past its expiry is no longer needed: the next sign-out removes it.
+    const stale = `stale-${randomBytes(8).toString('hex')}`;
+    await serverDb()('revoked_sessions').insert({ session_id: stale, user_id: null, expires_at: new Date(Date.now() - 60_000).toISOString(), revoked_at: now() });
+
     await signOut(client);
     expect(client.signedIn).toBe(false);
+    expect(await serverDb()('revoked_sessions').where({ session_id: stale }).first()).toBeUndefined();
     expect(await meWith(copy)).toBe(401);
     expect((await phone.request('GET', '/api/me')).status).toBe(200);
     const revoked = await serverDb()('revoked_sessions').where('expires_at', '>', now()).count<{ n: number }[]>({ n: '*' });

@@ -1,7 +1,8 @@
 // The server killed with SIGKILL (no chance to tidy up) during a terrain run with an upload still
-// arriving, and during a burst of fence line edits; started again on the same data folder, the
-// database is whole, every edit it acknowledged is there, no row is half-written, every file under
-// the data folder belongs to a row, and the interrupted run reads as failed with the reason.
+// arriving, during a burst of fence line edits and part way through a plan import; started again on
+// the same data folder, the database is whole, every edit it acknowledged is there, no row is
+// half-written, a plan is stored whole or not at all, every file under the data folder belongs to
+// a row, and the interrupted run reads as failed with the reason.
 import { existsSync, mkdtempSync, readdirSync, readFileSync, rmSync } from 'node:fs';
 import { request as httpRequest } from 'node:http';
 import { tmpdir } from 'node:os';
@@ -229,4 +230,39 @@ describe('killed during a burst of fence line edits', () => {
     const listed = await client.json<{ fenceLines: { id: number }[] }>('GET', `/api/properties/${propertyId}/fence-lines`);
     expect(listed.status).toBe(200);
   }, 240_000);
+});
+
+describe('killed during a plan import', () => {
+  it('stores the whole plan or none of it', async () => {
+    const base = MANIFEST.fenceLines[0]!.pointsLonLat;
+    // Forty lines across the creek, each a little further east: a long write, then their crossings.
+    const features = Array.from({ length: 40 }, (_, n) => ({
+      type: 'Feature',
+      geometry: { type: 'LineString', coordinates: base.map(([lon, lat]) => [lon + 0.0002 * (n + 1), lat]) },
+      properties: { featureType: 'fence-line', name: `Imported ${n + 1}`, status: 'planned' },
+    }));
+    const plan = JSON.stringify({ type: 'FeatureCollection', features });
+    // How long the whole import takes here, into a property of its own; the kill comes part way.
+    const scratch = (await client.json<{ property: { id: number } }>('POST', '/api/properties', { name: 'Scratch', crs: 'EPSG:7854' })).body.property.id;
+    const started = performance.now();
+    expect((await client.request('POST', `/api/properties/${scratch}/plan-import?name=plan.geojson`, plan, { 'Content-Type': 'application/geo+json' })).status).toBe(201);
+    const tookMs = performance.now() - started;
+    const sent = client.request('POST', `/api/properties/${propertyId}/plan-import?name=plan.geojson`, plan, { 'Content-Type': 'application/geo+json' }).catch(() => undefined);
+    await new Promise((resolve) => setTimeout(resolve, tookMs * 0.3));
+    await kill();
+    const answer = await sent;
+
+    await start();
+    await withDatabase(async (database) => {
+      expect(await integrity(database)).toBe('ok');
+      const imported = await database('fence_lines').where({ property_id: propertyId }).where('name', 'like', 'Imported %').count<{ n: number }[]>({ n: '*' });
+      const count = Number(imported[0]!.n);
+      console.log(`plan import (${Math.round(tookMs)} ms uncut) killed after ${Math.round(tookMs * 0.3)} ms: ${answer ? `answered ${answer.status}` : 'cut off'}; ${count} of 40 lines stored`);
+      expect([0, 40]).toContain(count);
+      if (answer?.status === 201) expect(count).toBe(40);
+      const audit = await database('audit_log').where({ property_id: propertyId, action: 'plan.import' }).count<{ n: number }[]>({ n: '*' });
+      expect(Number(audit[0]!.n)).toBe(count === 40 ? 1 : 0);
+      expect(await orphanFiles(database)).toEqual([]);
+    });
+  }, 120_000);
 });

@@ -152,7 +152,7 @@ export function sampleIfdTable() {
  */
 export function hostileXml(options: { depth?: number; hugeCoordinates?: number } = {}): { label: string; text: string }[] {
   const depth = options.depth ?? 5000;
-  const huge = options.hugeCoordinates ?? 300_000;
+  const huge = options.hugeCoordinates ?? 150_000;
   const laughs = ['<!ENTITY lol "lol">'];
   for (let i = 1; i <= 9; i++) laughs.push(`<!ENTITY lol${i} "${`&lol${i === 1 ? '' : i - 1};`.repeat(10)}">`);
   const placemark = (name: string, description = '') => `<Placemark><name>${name}</name><description>${description}</description><LineString><coordinates>141.64,-31.44 141.65,-31.45</coordinates></LineString></Placemark>`;

@@ -92,13 +92,14 @@ export function parseXml(text: string) {
 }
 
 /**
- * Most tags (`<`) and commas (the separators of KML coordinates) in one XML file: about 50 000 GPS
- * points with heights, or 500 000 KML positions. The DOM costs about 2.5 KB of memory per GPS
- * point (measured: 3 MB of GPX, 50 000 points, 170 MB and 4 s), so a file within the upload
- * limit but past these would hold the server's memory for tens of seconds.
+ * Most tags (`<`) and commas (the separators of KML coordinates) in one XML file: about 35 000 GPS
+ * points with heights, or 200 000 KML positions. The DOM costs about 2.5 KB of memory per GPS
+ * point (measured: 3 MB of GPX, 50 000 points, 170 MB and 4 s; a KML line of 290 000
+ * positions took the server to 340 MB), so a file within the upload
+ * limit but past these would hold hundreds of megabytes of the server's memory for tens of seconds.
  */
-export const MAX_XML_TAGS = 200_000;
-export const MAX_XML_COMMAS = 500_000;
+export const MAX_XML_TAGS = 150_000;
+export const MAX_XML_COMMAS = 200_000;
 
 /** Refuses text past {@link MAX_XML_TAGS} or {@link MAX_XML_COMMAS} before any of it is parsed. */
 function checkXmlBudget(text: string): void {
@@ -108,7 +109,7 @@ function checkXmlBudget(text: string): void {
   for (let i = text.indexOf(','); i !== -1; i = text.indexOf(',', i + 1)) if (++commas > MAX_XML_COMMAS) break;
   if (tags > MAX_XML_TAGS || commas > MAX_XML_COMMAS) {
     throw new ImportError(
-      'This file is too detailed to read in one go (more than about 50 000 GPS points, or 500 000 positions in KML). Split it, or thin its points in your GPS or mapping program (one every few metres is plenty for a fence line), and import the parts.',
+      'This file is too detailed to read in one go (more than about 35 000 GPS points, or 200 000 positions in KML). Split it, or thin its points in your GPS or mapping program (one every few metres is plenty for a fence line), and import the parts.',
     );
   }
 }
