@@ -164,3 +164,10 @@ export type WorkOrderSheet = {
   map: FeatureCollection;
   layoutPointCount: number;
 };
+
+/** The fence lines, crossings and people the create form offers. */
+export type WorkOrderChoices = {
+  fenceLines: { id: number; label: string; status: FenceStatus; lengthM: number }[];
+  crossings: { id: number; label: string; style: string | null }[];
+  people: { userId: number; name: string; role: string }[];
+};

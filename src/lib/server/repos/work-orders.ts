@@ -427,3 +427,15 @@ export async function propertyProgress(propertyId: number, trx: Knex = db()) {
     byStatus: Object.fromEntries((['draft', 'sent', 'done', 'cancelled'] as const).map((status) => [status, orders.filter((order) => order.status === status).length])),
   };
 }
+
+/** What the create form offers: the property's fence lines (not retired) and crossings, numbered as the exports number them. */
+export async function orderChoices(propertyId: number, trx: Knex = db()) {
+  const index = await planIndex(propertyId, trx);
+  const fences = [...index.fences.values()].filter((fence) => fence.status !== 'retired');
+  return {
+    fenceLines: fences.map((fence) => ({ id: fence.id, label: `F${fence.no} ${fence.name}`, status: fence.status, lengthM: fence.lengthM })),
+    crossings: [...index.crossings.values()]
+      .filter((crossing) => index.fences.get(crossing.fenceLineId)?.status !== 'retired')
+      .map((crossing) => ({ id: crossing.id, label: `${crossing.tag} on ${index.fences.get(crossing.fenceLineId)!.name}`, style: crossing.style })),
+  };
+}
