@@ -26,6 +26,8 @@ let fenceIds: Map<string, number>;
 let crossingsOnFence: number[] = [];
 let crossingElsewhere = 0;
 let fenceId = 0;
+/** The order the first test sends: still open on the same fence line when the second test runs. */
+let firstOrderId = 0;
 
 async function mailTo(to: string) {
   const folder = path.join(inject('dataDir'), 'mail');
@@ -78,6 +80,7 @@ describe('work orders', () => {
 
     const sent = await send(made.body.workOrder);
     expect(sent.status).toBe(200);
+    firstOrderId = made.body.workOrder.id;
     expect(sent.body.workOrder).toMatchObject({ status: 'sent', version: 2, link: null });
 
     const mail = await mailTo(crew.email);
@@ -132,7 +135,7 @@ describe('work orders', () => {
     expect(audit).toEqual(['work_order.create', 'work_order.send']);
   });
 
-  it('marking items moves the fence line: started makes it building, all of it done makes it built; progress follows', async () => {
+  it('marking items moves the fence line: started makes it building, all of its work on live orders done makes it built; progress follows', async () => {
     const made = (await create({ assigneeUserId: crew.userId, fenceLineIds: [fenceId], crossingIds: crossingsOnFence })).body.workOrder;
     const out = (await send(made)).body.workOrder;
     await serverDb()('fence_lines').where({ id: fenceId }).update({ status: 'approved' });
@@ -145,8 +148,13 @@ describe('work orders', () => {
 
     let last = started.body;
     for (const item of [fenceItem!, ...crossingItems]) last = (await mark(crew.client, out, item, 'done')).body;
-    expect(last.fenceStatus?.to).toBe('built');
     expect(last.workOrder).toMatchObject({ status: 'done', progress: { done: out.items.length, total: out.items.length, percentDone: 100 } });
+    // The first order still holds open work on this fence line, so it is not built yet …
+    expect(last.fenceStatus).toBeNull();
+    expect((await serverDb()('fence_lines').where({ id: fenceId }).first('status')).status).toBe('building');
+    // … until that order is cancelled: then all its live work is done.
+    const first = (await owner.json<{ workOrder: { order: Order } }>('GET', `${orders()}/${firstOrderId}`)).body.workOrder.order;
+    expect((await owner.json('PATCH', `${orders()}/${firstOrderId}`, { version: first.version, status: 'cancelled' })).status).toBe(200);
     expect((await serverDb()('fence_lines').where({ id: fenceId }).first('status')).status).toBe('built');
 
     const progress = await viewer.json<{ progress: { percentDone: number } }>('GET', `${orders()}/${out.id}/progress`);
