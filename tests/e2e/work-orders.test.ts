@@ -4,7 +4,7 @@
 import type { Browser } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { DEMO_ACCOUNTS, DEMO_PASSWORD } from '../../scripts/demo-accounts';
-import { appContext, launchBrowser, screenshot, seedDemoIntoTestServer, signInThroughPage, waitForMap } from '../helpers/browser';
+import { appContext, launchBrowser, openDemoWorkspace, screenshot, seedDemoIntoTestServer, signInThroughPage, waitForMap } from '../helpers/browser';
 import { drainageLines, fenceAcrossSegment, mainCreekPoint, propertyIdOf } from '../helpers/creek-fence';
 
 let browser: Browser;
@@ -18,9 +18,9 @@ const PHONE = { width: 390, height: 844 };
 /** Apple's Human Interface Guidelines ask for touch targets of at least 44 × 44 points. */
 const MIN_TOUCH_PX = 44;
 
-async function signIn(role: 'manager' | 'crew', viewport?: { width: number; height: number }) {
+async function signIn(role: 'crew', viewport: { width: number; height: number }) {
   const account = DEMO_ACCOUNTS.find((a) => a.role === role)!;
-  const { context, outsideRequests } = await appContext(browser, viewport ? { viewport } : {});
+  const { context, outsideRequests } = await appContext(browser, { viewport });
   const page = await context.newPage();
   await signInThroughPage(page, account.email, DEMO_PASSWORD);
   await page.waitForURL('**/app');
@@ -29,10 +29,9 @@ async function signIn(role: 'manager' | 'crew', viewport?: { width: number; heig
 
 describe('work orders', () => {
   it('a manager sends an order, the crew marks a crossing done on a phone, and the manager sees the progress', async () => {
-    const manager = await signIn('manager');
+    // The workspace opener waits until the demo's terrain run has made its drainage lines and crossings.
+    const manager = await openDemoWorkspace(browser, 'manager');
     const page = manager.page;
-    await page.getByRole('link', { name: /Saltbush Rise/ }).first().click();
-    await waitForMap(page);
     const propertyId = propertyIdOf(page);
 
     // A fence of its own, square across the main creek, so the demo's fences stay as other tests expect them.
@@ -101,6 +100,6 @@ describe('work orders', () => {
     expect(manager.outsideRequests).toEqual([]);
     expect(crew.outsideRequests).toEqual([]);
     await crew.context.close();
-    await manager.context.close();
+    await manager.close();
   }, 300_000);
 });
