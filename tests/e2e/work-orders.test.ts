@@ -47,7 +47,7 @@ describe('work orders', () => {
     await form.getByLabel('Who does the work').selectOption({ label: `${DEMO_ACCOUNTS.find((a) => a.role === 'crew')!.name} (crew)` });
     await form.getByLabel('Target date').fill('2027-03-01');
     await form.getByRole('group', { name: 'Fence lines' }).getByRole('checkbox', { name: new RegExp(fenceName) }).check();
-    const crossingBoxes = form.getByRole('group', { name: 'Crossings' }).getByRole('checkbox', { name: new RegExp(`on ${fenceName}`) });
+    const crossingBoxes = form.getByRole('group', { name: 'Crossings' }).getByRole('checkbox', { name: new RegExp(`on ${fenceName} · (Continuous swinging floodgate|Separate drop-down section)`) });
     expect(await crossingBoxes.count()).toBeGreaterThan(0);
     await crossingBoxes.first().check();
     await form.getByRole('button', { name: 'Save as draft' }).click();

@@ -1,13 +1,13 @@
 import type { Feature, FeatureCollection, LineString, Point } from 'geojson';
-import { useEffect, useMemo, useState } from 'react';
-import { Layer, Source } from 'react-map-gl/maplibre';
+import { useContext, useEffect, useMemo, useState } from 'react';
+import { Layer, Source, useMap } from 'react-map-gl/maplibre';
 import type { CrossingCollection, LayoutPointView, LonLat } from '../../lib/schemas/crossing-view';
 import type { FenceLine } from '../../lib/schemas/plan';
 import PlanOverlay from '../map/PlanOverlay';
-import PropertyMap from '../map/PropertyMap';
+import PropertyMap, { MapLoadedContext } from '../map/PropertyMap';
 import { PLAN_COLOURS, type CircleLayer } from '../map/plan-style';
 
-type Props = { propertyName: string; map: FeatureCollection };
+type Props = { propertyName: string; propertyExtentWgs84: [number, number, number, number] | null; map: FeatureCollection };
 
 const OWN_POSITION_SOURCE_ID = 'work-order-own-position';
 // The person's own position: a dark dot in a wide white ring, apart from every plan mark by size and rim.
@@ -34,13 +34,46 @@ function boundsOf(collection: FeatureCollection): [number, number, number, numbe
   return [Math.min(...lons), Math.min(...lats), Math.max(...lons), Math.max(...lats)];
 }
 
+/** Metres per pixel at zoom 0 on the equator for 512 px tiles (MapLibre's Web Mercator). */
+const METRES_PER_PX_AT_ZOOM_0 = 78_271.517;
+
+/**
+ * A view that brings the order's work into a phone-sized map: centred on it, zoomed so its
+ * longer side fills about 300 px, and never closer than the zoom where the posts show apart.
+ */
+function focusOn(bounds: [number, number, number, number] | null): { position: LonLat; zoom: number } | null {
+  if (!bounds) return null;
+  const [west, south, east, north] = bounds;
+  const lat = (south + north) / 2;
+  const cosLat = Math.cos((lat * Math.PI) / 180);
+  const spanM = Math.max((east - west) * 111_320 * cosLat, (north - south) * 110_574, 50);
+  const zoom = Math.log2((METRES_PER_PX_AT_ZOOM_0 * cosLat * 300) / spanM);
+  return { position: [(west + east) / 2, lat], zoom: Math.min(17, Math.max(11, zoom)) };
+}
+
+/**
+ * Moves the map to the order once it has loaded. The property map fits the property's extent in
+ * its own effect on load, which runs after this child's; the next frame comes after both.
+ */
+function FocusOnLoad({ focus }: { focus: { position: LonLat; zoom: number } | null }) {
+  const loaded = useContext(MapLoadedContext);
+  const { current: mapRef } = useMap();
+  useEffect(() => {
+    const map = mapRef?.getMap();
+    if (!loaded || !map || !focus) return;
+    const frame = requestAnimationFrame(() => map.jumpTo({ center: focus.position, zoom: focus.zoom }));
+    return () => cancelAnimationFrame(frame);
+  }, [loaded, mapRef, focus]);
+  return null;
+}
+
 /**
  * The order's fence lines, crossings and layout points on the property map (the plan overlay's
  * own layers), and the person's own position when they let the browser share it.
  */
-export default function WorkOrderMap({ propertyName, map }: Props) {
+export default function WorkOrderMap({ propertyName, propertyExtentWgs84, map }: Props) {
   const [where, setWhere] = useState<Where>({ state: 'off' });
-  const extent = useMemo(() => boundsOf(map), [map]);
+  const focus = useMemo(() => focusOn(boundsOf(map)), [map]);
   const fenceLines = useMemo(
     () =>
       map.features
@@ -94,8 +127,9 @@ export default function WorkOrderMap({ propertyName, map }: Props) {
   return (
     <div className="flex flex-col gap-2">
       <div className="h-72 overflow-hidden rounded-xl border border-sand-200 sm:h-96">
-        <PropertyMap propertyName={propertyName} extentWgs84={extent}>
+        <PropertyMap propertyName={propertyName} extentWgs84={propertyExtentWgs84}>
           <PlanOverlay fenceLines={fenceLines} crossings={crossings} selectedCrossingId={null} layoutPoints={layoutPoints} realignment={null} focus={null} />
+          <FocusOnLoad focus={focus} />
           <Source id={OWN_POSITION_SOURCE_ID} type="geojson" data={own}>
             <Layer {...ownPositionLayer} />
           </Source>

@@ -67,7 +67,7 @@ export default function WorkOrderView({ propertyId, sheet, canMark, contractor =
         <h2 id="map-heading" className="text-lg font-bold">
           Map
         </h2>
-        <WorkOrderMap propertyName={sheet.propertyName} map={sheet.map} />
+        <WorkOrderMap propertyName={sheet.propertyName} propertyExtentWgs84={sheet.propertyExtentWgs84} map={sheet.map} />
       </section>
 
       <section aria-labelledby="materials-heading" className="flex flex-col gap-2">

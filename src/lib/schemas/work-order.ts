@@ -157,6 +157,8 @@ export type WorkOrderMaterials = {
 /** Everything the crew view, the print page and the contractor's link show of an order. */
 export type WorkOrderSheet = {
   propertyName: string;
+  /** The property's extent [west, south, east, north], WGS84, for the map's frame. */
+  propertyExtentWgs84: [number, number, number, number] | null;
   order: WorkOrder;
   materials: WorkOrderMaterials;
   cautions: string[];

@@ -15,6 +15,7 @@ import { enqueueMail } from '../mail/outbox';
 import { absoluteUrl } from '../mail/templates';
 import { workOrderMail } from '../mail/work-order-mail';
 import { exportFileName, gatherPlan } from '../plan-export';
+import { getProperty } from '../repos/properties';
 import { getPropertySettings } from '../repos/property-settings';
 import { findWorkOrderByToken, getWorkOrder, lockForChange, markSent } from '../repos/work-orders';
 
@@ -94,11 +95,16 @@ async function orderCautions(propertyId: number, order: WorkOrder): Promise<stri
 
 /** What the crew view, the print page and the contractor's link show: the order, its materials, cautions and map. */
 export async function workOrderSheet(propertyId: number, order: WorkOrder, role: Role): Promise<WorkOrderSheet> {
-  const [plan, materials, cautions] = await Promise.all([gatherPlan(propertyId, role), orderMaterials(propertyId, order), orderCautions(propertyId, order)]);
+  const [plan, property, materials, cautions] = await Promise.all([
+    gatherPlan(propertyId, role),
+    getProperty(propertyId, role),
+    orderMaterials(propertyId, order),
+    orderCautions(propertyId, order),
+  ]);
   const scope = scopeOf(order);
   const map = planToGeoJson(plan, scope);
   const layoutPointCount = map.features.filter((feature) => feature.properties?.featureType === 'layout-point').length;
-  return { propertyName: plan.propertyName, order, materials, cautions, map, layoutPointCount };
+  return { propertyName: plan.propertyName, propertyExtentWgs84: property.extentWgs84, order, materials, cautions, map, layoutPointCount };
 }
 
 /** The two files sent with an order: the GPX waypoints and the GeoJSON of its crossings' layout points, named after the property and the order. */
