@@ -133,6 +133,18 @@ describe('work orders', () => {
 
     const audit = await serverDb()('audit_log').where({ property_id: propertyId, entity_type: 'work_order', entity_id: String(made.body.workOrder.id) }).pluck('action');
     expect(audit).toEqual(['work_order.create', 'work_order.send']);
+
+    // The printable sheet: a sketch drawn from the geometry (the order's fence line and the one its
+    // other crossing stands on), each crossing's style, the cautions.
+    const print = await crew.client.request('GET', `/app/properties/${propertyId}/work-orders/${made.body.workOrder.id}/print`);
+    expect(print.status).toBe(200);
+    const html = await print.text();
+    expect(html).toContain('data-testid="order-sketch"');
+    expect(html.match(/<polyline /g)).toHaveLength(2);
+    expect(html.match(/data-testid="print-item"/g)).toHaveLength(2 + crossingsOnFence.length);
+    expect(html).toContain('Separate drop-down section');
+    expect(html).toContain('Never enter floodwater');
+    expect((await crew.client.request('GET', `/app/properties/${propertyId}/work-orders/${made.body.workOrder.id}`)).status).toBe(200);
   });
 
   it('marking items moves the fence line: started makes it building, all of its work on live orders done makes it built; progress follows', async () => {
@@ -184,7 +196,9 @@ describe('work orders', () => {
     const [foreign] = await serverDb()('work_orders')
       .insert({ property_id: otherPropertyId, title: 'Elsewhere', status: 'draft', version: 1, created_at: now, updated_at: now })
       .returning('id');
-    for (const route of [`${orders()}/${foreign.id}`, `${orders()}/${foreign.id}/progress`]) expect((await owner.request('GET', route)).status).toBe(404);
+    for (const route of [`${orders()}/${foreign.id}`, `${orders()}/${foreign.id}/progress`, `/app/properties/${propertyId}/work-orders/${foreign.id}`]) {
+      expect((await owner.request('GET', route)).status, route).toBe(404);
+    }
     expect((await owner.request('PATCH', `${orders()}/${foreign.id}`, { version: 1, title: 'Taken' })).status).toBe(404);
 
     const made = (await create({ fenceLineIds: [fenceId] })).body.workOrder;
