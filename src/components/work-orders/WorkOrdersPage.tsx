@@ -19,15 +19,18 @@ export default function WorkOrdersPage({ propertyId, initialOrders, choices, can
   const live = orders.filter((order) => order.status === 'sent' || order.status === 'done');
   const overall = summariseProgress(live.flatMap((order) => order.items.map((item) => item.state)));
 
+  // The list is reloaded before the notice shows, so what the notice says is already on screen.
   const act = async (what: () => Promise<unknown>, ok: string) => {
     setNotice(null);
+    let result: { kind: 'ok' | 'error'; text: string };
     try {
       await what();
-      setNotice({ kind: 'ok', text: ok });
+      result = { kind: 'ok', text: ok };
     } catch (error) {
-      setNotice({ kind: 'error', text: error instanceof ApiError ? error.message : 'That did not work. Check the connection and try again.' });
+      result = { kind: 'error', text: error instanceof ApiError ? error.message : 'That did not work. Check the connection and try again.' };
     }
     await reload().catch(() => undefined);
+    setNotice(result);
   };
 
   return (
