@@ -77,6 +77,17 @@ describe('work orders repository', () => {
     expect(await db()('work_orders').count<{ n: number }[]>({ n: '*' })).toEqual(before);
   });
 
+  it('holds one assignee: naming a member clears the contractor and the other way round, and either can be cleared', async () => {
+    const a = await fenceWithCrossing('Assignee fence');
+    const order = await createWorkOrder(propertyId, input({ contractorEmail: 'fencer@contract.example', fenceLineIds: [a.fenceId] }), ownerId);
+    const member = await updateWorkOrder(propertyId, order.id, { version: 1, assigneeUserId: crewId }, ownerId);
+    expect([member.assigneeUserId, member.contractorEmail]).toEqual([crewId, null]);
+    const contractor = await updateWorkOrder(propertyId, order.id, { version: 2, contractorEmail: 'other@contract.example' }, ownerId);
+    expect([contractor.assigneeUserId, contractor.contractorEmail]).toEqual([null, 'other@contract.example']);
+    const nobody = await updateWorkOrder(propertyId, order.id, { version: 3, contractorEmail: null }, ownerId);
+    expect([nobody.assigneeUserId, nobody.contractorEmail]).toEqual([null, null]);
+  });
+
   it('refuses a stale edit and leaves the order as it was', async () => {
     const a = await fenceWithCrossing('Stale fence');
     const order = await createWorkOrder(propertyId, input({ fenceLineIds: [a.fenceId] }), ownerId);

@@ -249,10 +249,12 @@ export async function updateWorkOrder(propertyId: number, id: number, changes: U
       throw new ConflictError(`"${order.title}" is ${order.status} and no longer changes. Make a new work order for more work.`);
     }
     const { version, status, revokeLink, fenceLineIds, crossingIds, ...fields } = changes;
+    // One person does the work: naming a member clears the contractor, and the other way round.
     const assignee = fields.assigneeUserId !== undefined || fields.contractorEmail !== undefined;
-    const nextAssignee = assignee
-      ? { assigneeUserId: fields.assigneeUserId ?? (fields.contractorEmail ? null : order.assigneeUserId), contractorEmail: fields.contractorEmail ?? (fields.assigneeUserId ? null : order.contractorEmail) }
-      : { assigneeUserId: order.assigneeUserId, contractorEmail: order.contractorEmail };
+    const nextAssignee = {
+      assigneeUserId: fields.assigneeUserId !== undefined ? fields.assigneeUserId : fields.contractorEmail ? null : order.assigneeUserId,
+      contractorEmail: fields.contractorEmail !== undefined ? fields.contractorEmail : fields.assigneeUserId ? null : order.contractorEmail,
+    };
     const nextFences = fenceLineIds ?? order.items.filter((item) => item.kind === 'fence-line').map((item) => item.fenceLineId);
     const nextCrossings = crossingIds ?? order.items.filter((item) => item.kind === 'crossing').map((item) => item.crossingId!);
     const itemsChange = fenceLineIds !== undefined || crossingIds !== undefined;
