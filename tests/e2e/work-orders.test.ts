@@ -97,6 +97,15 @@ describe('work orders', () => {
     expect(await after.getByRole('progressbar').getAttribute('aria-valuenow')).toBe('50');
     await screenshot(page, 'work-orders-manager-progress');
 
+    // The printable sheet: the sketch drawn from the order's geometry, and no site header on paper.
+    await page.goto(`${orderUrl}/print`);
+    expect(await page.getByTestId('order-sketch').locator('polyline').count()).toBe(1);
+    expect(await page.getByTestId('order-sketch').locator('circle').count()).toBeGreaterThan(0);
+    await page.emulateMedia({ media: 'print' });
+    expect(await page.locator('body > header').isVisible()).toBe(false);
+    expect(await page.getByRole('button', { name: 'Print this sheet' }).isVisible()).toBe(false);
+    await screenshot(page, 'work-order-print');
+
     expect(manager.outsideRequests).toEqual([]);
     expect(crew.outsideRequests).toEqual([]);
     await crew.context.close();
