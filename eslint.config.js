@@ -14,7 +14,7 @@ export default defineConfig(
   { ignores: ['dist/', 'node_modules/', '.astro/', 'data/', 'test-output/', 'public/'] },
   ...tseslint.configs.recommended,
   {
-    files: ['src/lib/terrain/**', 'src/lib/crossings/**', 'src/lib/geo/**'],
+    files: ['src/lib/terrain/**', 'src/lib/crossings/**', 'src/lib/geo/**', 'src/lib/work-orders/**'],
     rules: {
       'no-restricted-imports': ['error', pureCoreImports],
       '@typescript-eslint/no-explicit-any': 'error',

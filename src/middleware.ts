@@ -11,7 +11,13 @@ const isApi = (path: string) => path === '/api' || path.startsWith('/api/');
 
 /** API routes open to anonymous callers; every other /api route answers 401 without a session. */
 function isPublicApi(path: string, method: string): boolean {
-  return path.startsWith('/api/auth/') || path === '/api/health' || (path === '/api/accounts' && method === 'POST');
+  return (
+    path.startsWith('/api/auth/') ||
+    path === '/api/health' ||
+    (path === '/api/accounts' && method === 'POST') ||
+    // A contractor's read-only work order link: the token is the key.
+    (path.startsWith('/api/work-order-links/') && method === 'GET')
+  );
 }
 
 const prepareDatabase = defineMiddleware(async (_context, next) => {

@@ -9,7 +9,7 @@ import { TestClient, closeServerDb, newAccount, serverDb, signedInClient } from 
 
 const CALLERS = ['anonymous', 'outsider', 'viewer', 'crew', 'manager', 'owner'] as const;
 type Caller = (typeof CALLERS)[number];
-type Context = { propertyId: number; targetUserId: number; elevationModelId: number; runId: number; modelId?: number; fenceId?: number; trackId?: number; crossingId?: number; paddockId?: number; invitationId?: number; token?: string };
+type Context = { propertyId: number; targetUserId: number; elevationModelId: number; runId: number; modelId?: number; fenceId?: number; trackId?: number; crossingId?: number; paddockId?: number; invitationId?: number; token?: string; orderId?: number; itemId?: number };
 type Entry = {
   expect: Record<Caller, number>;
   body?: (context: Context) => Promise<unknown> | unknown;
@@ -104,6 +104,25 @@ async function spareInvitation(context: Context): Promise<Partial<Context>> {
     })
     .returning('id');
   return { invitationId: row.id, token };
+}
+
+/**
+ * A work order of its own (one of the property's crossings) for a read, a change, a send or a
+ * delete; `sent` puts it out for work, `link` gives it a contractor's link whose token the context carries.
+ */
+async function spareOrder(context: Context, options: { sent?: boolean; link?: boolean } = {}): Promise<Partial<Context>> {
+  const crossing = await serverDb()('crossings').where({ property_id: context.propertyId }).orderBy('id').first('id');
+  const now = new Date().toISOString();
+  const token = `matrix-${randomBytes(24).toString('base64url')}`;
+  const [order] = await serverDb()('work_orders')
+    .insert({
+      property_id: context.propertyId, title: 'Matrix order', status: options.sent ? 'sent' : 'draft', version: 1, contractor_email: 'matrix-fencer@contract.example',
+      ...(options.link ? { link_token_hash: createHash('sha256').update(token).digest('hex'), link_expires_at: new Date(Date.now() + 86_400_000).toISOString() } : {}),
+      created_at: now, updated_at: now,
+    })
+    .returning('id');
+  const [item] = await serverDb()('work_order_items').insert({ work_order_id: order.id, crossing_id: crossing.id, position: 0 }).returning('id');
+  return { orderId: order.id, itemId: item.id, token };
 }
 
 const MANIFEST = JSON.parse(readFileSync('data-samples/saltbush-rise.json', 'utf8')) as { fenceLines: { name: string; pointsLonLat: [number, number][] }[] };
@@ -223,6 +242,18 @@ const MATRIX: Record<string, Entry> = {
     prepare: idleModel,
     body: ({ elevationModelId }) => ({ elevationModelId, thresholdHa: 20 }),
   },
+  'GET /api/properties/[id]/work-orders': { expect: atLeast('viewer', 200) },
+  'POST /api/properties/[id]/work-orders': { expect: atLeast('manager', 201), prepare: spareFence, body: ({ fenceId }) => ({ title: 'Matrix order', fenceLineIds: [fenceId] }) },
+  'GET /api/properties/[id]/work-orders/progress': { expect: atLeast('viewer', 200) },
+  'GET /api/properties/[id]/work-orders/[orderId]': { expect: atLeast('viewer', 200), prepare: (c) => spareOrder(c) },
+  'PATCH /api/properties/[id]/work-orders/[orderId]': { expect: atLeast('manager', 200), prepare: (c) => spareOrder(c), body: () => ({ version: 1, title: 'Renamed' }) },
+  'DELETE /api/properties/[id]/work-orders/[orderId]': { expect: atLeast('manager', 204), prepare: (c) => spareOrder(c) },
+  'POST /api/properties/[id]/work-orders/[orderId]/send': { expect: atLeast('manager', 200), prepare: (c) => spareOrder(c), body: () => ({ version: 1 }) },
+  'GET /api/properties/[id]/work-orders/[orderId]/progress': { expect: atLeast('viewer', 200), prepare: (c) => spareOrder(c) },
+  // Any crew member of the property marks work on a sent order, not only its assignee.
+  'PATCH /api/properties/[id]/work-orders/[orderId]/items/[itemId]': { expect: atLeast('crew', 200), prepare: (c) => spareOrder(c, { sent: true }), body: () => ({ state: 'started', note: '' }) },
+  // A contractor's read-only link: the token is the key, signed in or not.
+  'GET /api/work-order-links/[token]': { expect: everyone(200, 200), prepare: (c) => spareOrder(c, { sent: true, link: true }) },
   'GET /api/properties/[id]/terrain-runs/[runId]': { expect: atLeast('viewer', 200) },
   'POST /api/properties/[id]/terrain-runs/[runId]/cancel': { expect: atLeast('manager', 200), prepare: queuedRun },
   'GET /api/properties/[id]/terrain-runs/[runId]/contours.geojson': { expect: atLeast('viewer', 200) },
@@ -262,7 +293,10 @@ function fill(route: string, context: Context): string {
     .replace('[trackId]', String(context.trackId ?? 0))
     .replace('[crossingId]', String(context.crossingId ?? 0))
     .replace('[paddockId]', String(context.paddockId ?? 0))
-    .replace('[invitationId]', String(context.invitationId ?? 0));
+    .replace('[invitationId]', String(context.invitationId ?? 0))
+    .replace('[orderId]', String(context.orderId ?? 0))
+    .replace('[itemId]', String(context.itemId ?? 0))
+    .replace('[token]', context.token ?? 'none');
 }
 
 const clients = {} as Record<Caller, TestClient>;

@@ -16,6 +16,7 @@ import type { Track, TrackImportResult } from '../schemas/tracks';
 import type { Invitation } from '../schemas/invitation';
 import type { Member, PropertySummary } from '../schemas/property';
 import type { ElevationModelView, TerrainRun } from '../schemas/terrain';
+import type { CreateWorkOrderInput, ItemState, UpdateWorkOrderInput, WorkOrder, WorkOrderProgress, WorkOrderSheet } from '../schemas/work-order';
 
 /** An error answer from the API, with the message and per-field problems it carried. */
 export class ApiError extends Error {
@@ -197,3 +198,21 @@ export async function importPlan(propertyId: number, file: File): Promise<{ impo
   if (response.status !== 201 || !data.imported) throw new ApiError(response.status, data.error ?? `The server answered ${response.status}.`, data.fields);
   return { imported: data.imported };
 }
+
+/** The work order calls of the work orders page and the crew view. */
+export const workOrderApi = {
+  list: (propertyId: number) => request<{ workOrders: WorkOrder[] }>('GET', `/api/properties/${propertyId}/work-orders`),
+  create: (propertyId: number, input: Partial<CreateWorkOrderInput>) => request<{ workOrder: WorkOrder }>('POST', `/api/properties/${propertyId}/work-orders`, input),
+  get: (propertyId: number, orderId: number) => request<{ workOrder: WorkOrderSheet }>('GET', `/api/properties/${propertyId}/work-orders/${orderId}`),
+  update: (propertyId: number, orderId: number, changes: UpdateWorkOrderInput) =>
+    request<{ workOrder: WorkOrder }>('PATCH', `/api/properties/${propertyId}/work-orders/${orderId}`, changes),
+  remove: (propertyId: number, orderId: number) => request<void>('DELETE', `/api/properties/${propertyId}/work-orders/${orderId}`),
+  send: (propertyId: number, orderId: number, version: number) => request<{ workOrder: WorkOrder }>('POST', `/api/properties/${propertyId}/work-orders/${orderId}/send`, { version }),
+  setItemState: (propertyId: number, orderId: number, itemId: number, input: { state: ItemState; note: string }) =>
+    request<{ workOrder: WorkOrder }>('PATCH', `/api/properties/${propertyId}/work-orders/${orderId}/items/${itemId}`, input),
+  propertyProgress: (propertyId: number) =>
+    request<{ orders: { id: number; title: string; status: string; progress: WorkOrderProgress }[]; live: WorkOrderProgress; byStatus: Record<string, number> }>(
+      'GET',
+      `/api/properties/${propertyId}/work-orders/progress`,
+    ),
+};

@@ -69,6 +69,25 @@ export interface PlanForExport {
 }
 
 /**
+ * A part of a plan to write (a work order's): the fence lines and crossings by id. The whole plan
+ * is still numbered, so a waypoint keeps the name it has in the property's full export.
+ */
+export interface PlanScope {
+  readonly fenceLineIds: ReadonlySet<number>;
+  readonly crossingIds: ReadonlySet<number>;
+}
+
+/** The plan's parts a scope keeps (all of them without a scope); paddocks only without one. */
+export function scopedParts(plan: PlanForExport, scope: PlanScope | undefined) {
+  if (!scope) return { fenceLines: plan.fenceLines, paddocks: plan.paddocks, crossings: plan.crossings };
+  return {
+    fenceLines: plan.fenceLines.filter((fence) => scope.fenceLineIds.has(fence.id)),
+    paddocks: [],
+    crossings: plan.crossings.filter((crossing) => scope.crossingIds.has(crossing.id)),
+  };
+}
+
+/**
  * Checks a plan at the entry of an exporter: every position a finite `[lon, lat]` in range,
  * every fence line of two points or more, every paddock ring closed with four positions or more,
  * every crossing on a fence line of the plan.

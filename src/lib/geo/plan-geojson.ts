@@ -1,6 +1,6 @@
 import type { Feature, FeatureCollection, LineString, Point, Polygon } from 'geojson';
 import { orientRing } from './measure';
-import { checkPlan, PLAN_EXPORT_FORMAT_VERSION, type PlanForExport } from './plan-data';
+import { checkPlan, PLAN_EXPORT_FORMAT_VERSION, scopedParts, type PlanForExport, type PlanScope } from './plan-data';
 import { numberPlan } from './plan-numbering';
 
 /** What a feature of a plan export is; every feature's properties carry it as `featureType`. */
@@ -23,15 +23,17 @@ const round = (value: number | null, digits: number) => (value === null ? null :
  * version, the property's name and the export time.
  *
  * @param plan - the plan, with the export time from the caller's clock
+ * @param scope - only these fence lines and crossings (a work order's), no paddocks; numbered as in the whole plan
  * @throws RangeError when the plan holds a position out of range or an open paddock ring
  */
-export function planToGeoJson(plan: PlanForExport): PlanFeatureCollection {
+export function planToGeoJson(plan: PlanForExport, scope?: PlanScope): PlanFeatureCollection {
   checkPlan(plan);
   const numbering = numberPlan(plan);
+  const parts = scopedParts(plan, scope);
   const fenceNames = new Map(plan.fenceLines.map((fence) => [fence.id, fence.name]));
   const features: Feature<LineString | Polygon | Point>[] = [];
 
-  for (const fence of plan.fenceLines) {
+  for (const fence of parts.fenceLines) {
     features.push({
       type: 'Feature',
       geometry: { type: 'LineString', coordinates: fence.coordinates.map(([lon, lat]) => [lon, lat]) },
@@ -48,7 +50,7 @@ export function planToGeoJson(plan: PlanForExport): PlanFeatureCollection {
     });
   }
 
-  for (const paddock of plan.paddocks) {
+  for (const paddock of parts.paddocks) {
     features.push({
       type: 'Feature',
       geometry: { type: 'Polygon', coordinates: paddock.rings.map((ring, i) => orientRing(ring, i === 0)) },
@@ -56,7 +58,7 @@ export function planToGeoJson(plan: PlanForExport): PlanFeatureCollection {
     });
   }
 
-  for (const crossing of plan.crossings) {
+  for (const crossing of parts.crossings) {
     features.push({
       type: 'Feature',
       geometry: { type: 'Point', coordinates: [crossing.position[0], crossing.position[1]] },
@@ -82,7 +84,7 @@ export function planToGeoJson(plan: PlanForExport): PlanFeatureCollection {
     });
   }
 
-  for (const crossing of plan.crossings) {
+  for (const crossing of parts.crossings) {
     for (const point of numbering.namedPoints(crossing)) {
       features.push({
         type: 'Feature',

@@ -1,4 +1,4 @@
-import { checkPlan, type PlanForExport } from './plan-data';
+import { checkPlan, scopedParts, type PlanForExport, type PlanScope } from './plan-data';
 import { numberPlan } from './plan-numbering';
 import { createXmlWriter, decimalText } from './xml-writer';
 
@@ -14,9 +14,10 @@ export const GPX_NAMESPACE = 'http://www.topografix.com/GPX/1/1';
  * allows −180 ≤ lon < 180. The XML is built with @xmldom/xmldom, so text is escaped.
  *
  * @param plan - the plan, with the export time from the caller's clock
+ * @param scope - only these crossings' points (a work order's), named as in the whole plan
  * @throws RangeError when the plan holds a position out of range
  */
-export function planToGpx(plan: PlanForExport): string {
+export function planToGpx(plan: PlanForExport, scope?: PlanScope): string {
   checkPlan(plan);
   const numbering = numberPlan(plan);
   const xml = createXmlWriter(GPX_NAMESPACE, 'gpx', { version: '1.1', creator: 'Gullyline' });
@@ -24,7 +25,7 @@ export function planToGpx(plan: PlanForExport): string {
   xml.add(metadata, 'name', `${plan.propertyName} — crossing layout points`);
   xml.add(metadata, 'desc', 'Strainers, posts and breakaway ties of the designed crossings. Names: F<fence> X<crossing> <code>; ES end strainer (1 near side, 2 far side), FR flex-run strainer, P<n> post n (S: stayed), BT breakaway tie.');
   xml.add(metadata, 'time', new Date(plan.exportedAt).toISOString());
-  for (const crossing of plan.crossings) {
+  for (const crossing of scopedParts(plan, scope).crossings) {
     for (const point of numbering.namedPoints(crossing)) {
       const [lon, lat] = point.position;
       const lonText = decimalText(lon, 8);

@@ -29,6 +29,7 @@ const schema = z.object({
   MAIL_MAX_ATTEMPTS: z.coerce.number().int().min(1).max(20).default(6),
   DEV_MAIL_PAGE: z.enum(['true', 'false', '1', '0', '']).default('').transform((value) => value === 'true' || value === '1'),
   INVITATION_EXPIRY_DAYS: z.coerce.number().positive().max(90).default(7),
+  WORK_ORDER_LINK_EXPIRY_DAYS: z.coerce.number().positive().max(365).default(30),
 });
 
 export type AppConfig = {
@@ -52,6 +53,8 @@ export type AppConfig = {
   /** Whether /dev/mail is served; always outside production. */
   devMailPage: boolean;
   invitationExpiryMs: number;
+  /** How long a contractor's read-only work order link works after the order is sent. */
+  workOrderLinkExpiryMs: number;
 };
 
 let cached: AppConfig | undefined;
@@ -95,6 +98,7 @@ export function parseConfig(variables: Record<string, string | undefined>): AppC
     mailMaxAttempts: env.MAIL_MAX_ATTEMPTS,
     devMailPage: env.DEV_MAIL_PAGE || env.NODE_ENV !== 'production',
     invitationExpiryMs: env.INVITATION_EXPIRY_DAYS * 24 * 60 * 60_000,
+    workOrderLinkExpiryMs: env.WORK_ORDER_LINK_EXPIRY_DAYS * 24 * 60 * 60_000,
   };
 }
 

@@ -104,3 +104,18 @@ describe('planToGeoJson', () => {
     expect(() => planToGeoJson(far)).toThrow(/fence line 14 position 0 must be \[lon, lat\]/);
   });
 });
+
+describe('planToGeoJson with a scope (a work order)', () => {
+  it('keeps only the scoped fence lines, crossings and their layout points, no paddocks, tagged as in the whole plan', () => {
+    const plan = samplePlan();
+    const scoped = planToGeoJson(plan, { fenceLineIds: new Set([11]), crossingIds: new Set([202]) });
+    const of = (type: string) => scoped.features.filter((f) => f.properties?.featureType === type);
+    expect(of('fence-line').map((f) => f.properties?.id)).toEqual([11]);
+    expect(of('paddock')).toEqual([]);
+    // 202 lies second along fence 11 by chainage, with or without 201 in the scope.
+    expect(of('crossing').map((f) => [f.properties?.id, f.properties?.tag])).toEqual([[202, 'F1 X2']]);
+    expect(of('layout-point')).toEqual([]);
+    expect(planToGeoJson(plan, { fenceLineIds: new Set(), crossingIds: new Set([201]) }).features.filter((f) => f.properties?.featureType === 'layout-point')).toHaveLength(8);
+    expect(() => check(JSON.stringify(scoped))).not.toThrow();
+  });
+});

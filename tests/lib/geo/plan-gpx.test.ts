@@ -111,3 +111,14 @@ describe('planToGpx', () => {
     expect(plan).toEqual(samplePlan());
   });
 });
+
+describe('planToGpx with a scope (a work order)', () => {
+  it("writes only the scoped crossings' points, named as in the whole plan's file", () => {
+    const plan = samplePlan();
+    const whole = waypoints(planToGpx(plan)).map((w) => text(w, 'name'));
+    const only201 = waypoints(planToGpx(plan, { fenceLineIds: new Set([11]), crossingIds: new Set([201]) })).map((w) => text(w, 'name'));
+    expect(only201).toEqual(whole.filter((name) => name!.startsWith('F1 X1 ')));
+    expect(only201).toHaveLength(8);
+    expect(waypoints(planToGpx(plan, { fenceLineIds: new Set([14]), crossingIds: new Set() }))).toEqual([]);
+  });
+});

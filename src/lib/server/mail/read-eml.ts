@@ -26,6 +26,17 @@ export function readEml(raw: string): CaughtMail {
   };
 }
 
+/** The attachments of a raw message with their decoded bytes (for the tests that open sent files). */
+export function readEmlAttachments(raw: string): { filename: string; contentType: string; content: Buffer }[] {
+  const parts: Part[] = [];
+  collectParts(splitPart(raw), parts);
+  return parts.filter(isAttachment).map((part) => ({
+    filename: /filename="?([^";]+)"?/i.exec(part.headers.get('content-disposition') ?? '')?.[1] ?? 'attachment',
+    contentType: contentType(part).split(';')[0]!.trim(),
+    content: decodeBytes(part),
+  }));
+}
+
 function splitPart(raw: string): Part {
   const normalized = raw.replace(/\r\n/g, '\n');
   const end = normalized.indexOf('\n\n');
@@ -61,15 +72,17 @@ function collectParts(part: Part, into: Part[]): void {
   }
 }
 
-function decodeBody(part: Part): string {
+function decodeBytes(part: Part): Buffer {
   const encoding = (part.headers.get('content-transfer-encoding') ?? '').toLowerCase();
-  const charset = /charset="?([^";]+)"?/i.exec(part.headers.get('content-type') ?? '')?.[1] ?? 'utf-8';
   const body = part.body.replace(/\n$/, '');
-  let bytes: Buffer;
-  if (encoding === 'base64') bytes = Buffer.from(body.replace(/\s+/g, ''), 'base64');
-  else if (encoding === 'quoted-printable') bytes = decodeQuotedPrintable(body);
-  else bytes = Buffer.from(body, 'utf8');
-  return new TextDecoder(charset.toLowerCase() === 'us-ascii' ? 'utf-8' : charset).decode(bytes);
+  if (encoding === 'base64') return Buffer.from(body.replace(/\s+/g, ''), 'base64');
+  if (encoding === 'quoted-printable') return decodeQuotedPrintable(body);
+  return Buffer.from(body, 'utf8');
+}
+
+function decodeBody(part: Part): string {
+  const charset = /charset="?([^";]+)"?/i.exec(part.headers.get('content-type') ?? '')?.[1] ?? 'utf-8';
+  return new TextDecoder(charset.toLowerCase() === 'us-ascii' ? 'utf-8' : charset).decode(decodeBytes(part));
 }
 
 function decodeQuotedPrintable(body: string): Buffer {
