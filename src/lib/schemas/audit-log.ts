@@ -65,6 +65,14 @@ const DESCRIBE: Record<string, (detail: Detail, entityId: string | null, subject
   'plan.import': (d) =>
     `Imported the plan ${text(d.sourceFile) ?? ''}${[count(d.fenceLines, 'fence line', 'fence lines'), count(d.paddocks, 'paddock', 'paddocks')].filter(Boolean).map((p, i) => (i ? `, ${p}` : ` (${p}`)).join('')}${d.fenceLines != null || d.paddocks != null ? ')' : ''}`,
   'crossing.inputs': (d, id) => `Changed what is known about crossing ${id ?? ''}${keysOf(d)}`,
+  'fence_line.status': (d) => `Fence line${quoted(d.name)} went from ${text(d.from) ?? '?'} to ${text(d.to) ?? '?'}${text(d.workOrderId) ? ` (work order ${text(d.workOrderId)})` : ''}`,
+  'work_order.create': (d) => `Made work order${quoted(d.title)}`,
+  'work_order.update': (d, id) => `Changed work order ${id ?? ''}${fieldList(d.fields)}`,
+  'work_order.cancel': (_d, id) => `Cancelled work order ${id ?? ''}`.trim(),
+  'work_order.delete': (d) => `Deleted work order${quoted(d.title)}`,
+  'work_order.send': (d, id) => `${d.resent ? 'Sent again' : 'Sent'} work order ${id ?? ''}${typeof d.to === 'string' ? ` to ${d.to}` : ''}`,
+  'work_order.item_state': (d) =>
+    `Marked ${text(d.label) ?? 'an item'} ${text(d.to) ?? ''}${text(d.workOrderId) ? ` (work order ${text(d.workOrderId)})` : ''}${text(d.note) ? `: “${text(d.note)}”` : ''}`,
   'elevation_model.upload': (d) => `Uploaded elevation model${quoted(d.name)}`,
   'elevation_model.delete': (d) => `Deleted elevation model${quoted(d.name)}`,
   'terrain_run.start': () => 'Started a terrain run',

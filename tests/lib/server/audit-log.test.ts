@@ -59,7 +59,9 @@ describe('the change log', () => {
     expect(describeChange('membership.change_role', { from: 'crew', to: 'manager' }, '7')).toBe("Changed a person's role from crew to manager");
     expect(describeChange('membership.add', { role: 'crew' }, '7', 'Jess Kowalski')).toBe('Added Jess Kowalski as crew');
     expect(describeChange('plan.import', { sourceFile: 'plan.kml', fenceLines: 3, paddocks: 1 }, null)).toBe('Imported the plan plan.kml (3 fence lines, 1 paddock)');
-    expect(describeChange('work_order.send', { title: 'North boundary' }, '5')).toBe('Work order 5: send “North boundary”');
+    expect(describeChange('work_order.item_state', { label: 'North fence', to: 'done', workOrderId: 5, note: 'Tie re-set' }, '9')).toBe('Marked North fence done (work order 5): “Tie re-set”');
+    expect(describeChange('fence_line.status', { name: 'North fence', from: 'approved', to: 'building', workOrderId: 5 }, '2')).toBe('Fence line “North fence” went from approved to building (work order 5)');
+    expect(describeChange('rain_event.delete', { title: 'March storm' }, '5')).toBe('Rain event 5: delete “March storm”');
     expect(groupOfAction('work_order.send')).toBe('work');
     expect(groupOfAction('something.else')).toBeNull();
   });
