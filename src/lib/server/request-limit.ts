@@ -16,6 +16,8 @@ const EXPENSIVE_ROUTES: { method: string; pattern: RegExp; what: string }[] = [
   { method: 'GET', pattern: /^\/api\/properties\/[^/]+\/exports\/[^/]+$/, what: 'exports' },
   { method: 'GET', pattern: /^\/api\/properties\/[^/]+\/materials\.csv$/, what: 'exports' },
   { method: '*', pattern: /^\/api\/properties\/[^/]+\/crossings\/[^/]+\/realignment\/?$/, what: 'realignments' },
+  // Each send builds the order's GPX and GeoJSON and queues an e-mail with them.
+  { method: 'POST', pattern: /^\/api\/properties\/[^/]+\/work-orders\/[^/]+\/send\/?$/, what: 'work order sends' },
 ];
 
 /** What an expensive route does (for the message), or undefined for every other route. */

@@ -10,6 +10,7 @@ describe('expensive routes', () => {
     expect(expensiveRouteOf('GET', '/api/properties/4/exports/plan.kml')).toBe('exports');
     expect(expensiveRouteOf('GET', '/api/properties/4/materials.csv')).toBe('exports');
     expect(expensiveRouteOf('POST', '/api/properties/4/crossings/9/realignment')).toBe('realignments');
+    expect(expensiveRouteOf('POST', '/api/properties/4/work-orders/3/send')).toBe('work order sends');
   });
 
   it('leave reads and ordinary edits alone', () => {
