@@ -16,6 +16,7 @@ const EXPENSIVE_ROUTES: { method: string; pattern: RegExp; what: string }[] = [
   { method: 'GET', pattern: /^\/api\/properties\/[^/]+\/exports\/[^/]+$/, what: 'exports' },
   { method: 'GET', pattern: /^\/api\/properties\/[^/]+\/materials\.csv$/, what: 'exports' },
   { method: '*', pattern: /^\/api\/properties\/[^/]+\/crossings\/[^/]+\/realignment\/?$/, what: 'realignments' },
+  { method: 'POST', pattern: /^\/api\/properties\/[^/]+\/photos\/?$/, what: 'photo uploads' },
 ];
 
 /** What an expensive route does (for the message), or undefined for every other route. */
