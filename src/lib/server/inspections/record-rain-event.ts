@@ -47,18 +47,17 @@ export async function recordRainEvent(propertyId: number, input: RainEventInput,
     return { ...pick, label: `${crossing.fenceName} at ${Math.round(crossing.chainageM)} m`, style: crossing.style };
   });
   const where = scope.kind === 'property' ? 'the whole property' : `paddocks ${paddockNames.join(', ')}`;
-  const ids = await insertRainEventWithRound(propertyId, input, selected, user.id, async ({ roundId }, trx) => {
+  return insertRainEventWithRound(propertyId, input, selected, user.id, async ({ roundId, crossingCount }, trx) => {
     const property = (await trx('properties').where({ id: propertyId }).first('name')) as { name: string };
     const crew = (await listMembers(propertyId, trx)).filter((member) => member.role === 'crew');
     for (const member of crew) {
       await enqueueMail(
         inspectionRoundMail({
           to: member.email, propertyName: property.name, recordedByName: user.name, fellOn: input.fellOn, rainfallMm: input.rainfallMm,
-          where, crossingCount: selected.length, roundUrl: absoluteUrl(roundPath(propertyId, roundId), origin),
+          where, crossingCount, roundUrl: absoluteUrl(roundPath(propertyId, roundId), origin),
         }),
         trx,
       );
     }
   });
-  return { ...ids, crossingIds: selected.map((pick) => pick.id) };
 }

@@ -138,10 +138,13 @@ export async function insertRainEventWithRound(
   input: RainEventInput,
   crossings: readonly RoundCrossing[],
   userId: number,
-  afterInsert: (ids: { rainEventId: number; roundId: number }, trx: Knex) => Promise<void>,
-): Promise<{ rainEventId: number; roundId: number }> {
+  afterInsert: (ids: { rainEventId: number; roundId: number; crossingCount: number }, trx: Knex) => Promise<void>,
+): Promise<{ rainEventId: number; roundId: number; crossingIds: number[] }> {
   return db().transaction(async (trx) => {
     const now = new Date().toISOString();
+    // A terrain run may have redrawn the crossings since they were read: a crossing gone by now is left out.
+    const existing = new Set((await trx('crossings').where({ property_id: propertyId }).pluck('id')) as number[]);
+    const kept = crossings.filter((crossing) => existing.has(crossing.id));
     const [event] = await trx('rain_events')
       .insert({
         property_id: propertyId, fell_on: input.fellOn, rainfall_mm: input.rainfallMm, scope: input.scope,
@@ -151,18 +154,18 @@ export async function insertRainEventWithRound(
     const rainEventId = (event as { id: number }).id;
     const [round] = await trx('inspection_rounds').insert({ property_id: propertyId, rain_event_id: rainEventId, status: 'open', version: 1, created_at: now }).returning('id');
     const roundId = (round as { id: number }).id;
-    if (crossings.length) {
+    if (kept.length) {
       await trx('inspection_checks').insert(
-        crossings.map((crossing, i) => ({
+        kept.map((crossing, i) => ({
           property_id: propertyId, round_id: roundId, crossing_id: crossing.id, position: i + 1, crossing_label: crossing.label.slice(0, 200),
           style: crossing.style, catchment_ha: crossing.catchmentHa, selected_by: crossing.selectedBy, status: 'not-checked', note: '', version: 1,
         })),
       );
     }
-    const detail = { fellOn: input.fellOn, rainfallMm: input.rainfallMm, scope: input.scope, paddockIds: input.paddockIds, roundId, crossingIds: crossings.map((c) => c.id) };
+    const detail = { fellOn: input.fellOn, rainfallMm: input.rainfallMm, scope: input.scope, paddockIds: input.paddockIds, roundId, crossingIds: kept.map((c) => c.id) };
     await recordAudit({ propertyId, userId, action: 'rain_event.create', entityType: 'rain_event', entityId: rainEventId, detail }, trx);
-    await afterInsert({ rainEventId, roundId }, trx);
-    return { rainEventId, roundId };
+    await afterInsert({ rainEventId, roundId, crossingCount: kept.length }, trx);
+    return { rainEventId, roundId, crossingIds: detail.crossingIds };
   });
 }
 
