@@ -135,6 +135,12 @@ async function idleModel(context: Context): Promise<Partial<Context>> {
   throw new Error('terrain runs did not finish');
 }
 
+/** A crossing the property has now: a terrain run redraws the crossings, so an id read earlier may be gone. */
+async function currentCrossing(context: Context): Promise<Partial<Context>> {
+  const row = await serverDb()('crossings').where({ property_id: context.propertyId }).orderBy('id', 'desc').first('id');
+  return { crossingId: row.id };
+}
+
 /** A round of its own (a rain event on the whole property, recorded by the owner) with its first check. */
 async function spareRound(context: Context): Promise<Partial<Context>> {
   const { body } = await clients.owner.json<{ round: { id: number; checks: { id: number }[] } }>('POST', `/api/properties/${context.propertyId}/rain-events`, { fellOn: '2026-11-20', rainfallMm: 30, scope: 'property' });
@@ -261,7 +267,7 @@ const MATRIX: Record<string, Entry> = {
   'PATCH /api/properties/[id]/inspection-rounds/[roundId]/checks/[checkId]': { expect: atLeast('crew', 200), prepare: spareRound, body: () => ({ status: 'intact', version: 1 }) },
   'POST /api/properties/[id]/photos': { expect: atLeast('crew', 201), prepare: spareRound, form: async ({ checkId }) => photoForm(checkId) },
   'GET /api/properties/[id]/photos/[photoId]': { expect: atLeast('viewer', 200), prepare: sparePhoto },
-  'GET /api/properties/[id]/crossings/[crossingId]/inspections': { expect: atLeast('viewer', 200) },
+  'GET /api/properties/[id]/crossings/[crossingId]/inspections': { expect: atLeast('viewer', 200), prepare: currentCrossing },
   'GET /api/properties/[id]/crossings/redesign-flags': { expect: atLeast('viewer', 200) },
 };
 

@@ -154,14 +154,12 @@ export async function insertRainEventWithRound(
     const rainEventId = (event as { id: number }).id;
     const [round] = await trx('inspection_rounds').insert({ property_id: propertyId, rain_event_id: rainEventId, status: 'open', version: 1, created_at: now }).returning('id');
     const roundId = (round as { id: number }).id;
-    if (kept.length) {
-      await trx('inspection_checks').insert(
-        kept.map((crossing, i) => ({
-          property_id: propertyId, round_id: roundId, crossing_id: crossing.id, position: i + 1, crossing_label: crossing.label.slice(0, 200),
-          style: crossing.style, catchment_ha: crossing.catchmentHa, selected_by: crossing.selectedBy, status: 'not-checked', note: '', version: 1,
-        })),
-      );
-    }
+    const rows = kept.map((crossing, i) => ({
+      property_id: propertyId, round_id: roundId, crossing_id: crossing.id, position: i + 1, crossing_label: crossing.label.slice(0, 200),
+      style: crossing.style, catchment_ha: crossing.catchmentHa, selected_by: crossing.selectedBy, status: 'not-checked', note: '', version: 1,
+    }));
+    // knex inserts many rows into SQLite as one compound SELECT, which SQLite limits to 500 terms.
+    for (let start = 0; start < rows.length; start += 200) await trx('inspection_checks').insert(rows.slice(start, start + 200));
     const detail = { fellOn: input.fellOn, rainfallMm: input.rainfallMm, scope: input.scope, paddockIds: input.paddockIds, roundId, crossingIds: kept.map((c) => c.id) };
     await recordAudit({ propertyId, userId, action: 'rain_event.create', entityType: 'rain_event', entityId: rainEventId, detail }, trx);
     await afterInsert({ rainEventId, roundId, crossingCount: kept.length }, trx);
