@@ -1,5 +1,5 @@
 import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
-import { useState, type FormEvent } from 'react';
+import { useState } from 'react';
 import { ApiError, api } from '../../lib/client/api';
 import { withQueryClient } from '../QueryRoot';
 
@@ -34,7 +34,7 @@ function InspectionsPage({ propertyId, paddocks, canRecord }: Props) {
     },
   });
 
-  const submit = (event: FormEvent) => {
+  const submit = (event: { preventDefault(): void }) => {
     event.preventDefault();
     if (rainfallMm.trim() === '' || !Number.isFinite(Number(rainfallMm))) {
       setErrors({ rainfallMm: 'Give the rainfall as a number of millimetres.' });
