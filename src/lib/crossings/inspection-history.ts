@@ -51,11 +51,6 @@ export function redesignFlag(history: readonly HistoryCheck[], style: FloodgateS
   return { suggestedStyle, failedRounds, reason: `Failed in ${failedRounds.length} rounds (${listed}). ${why}` };
 }
 
-/** True when the style name is one of the design styles. */
-export function isFloodgateStyle(style: string | null): style is FloodgateStyle {
-  return style !== null && style in STYLE_WORDS;
-}
-
 /** The style in words, for the suggestion. */
 export function styleInWords(style: FloodgateStyle): string {
   return STYLE_WORDS[style];
