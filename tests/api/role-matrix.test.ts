@@ -4,17 +4,20 @@
 import { createHash, randomBytes } from 'node:crypto';
 import { readdirSync, readFileSync } from 'node:fs';
 import path from 'node:path';
+import sharp from 'sharp';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { TestClient, closeServerDb, newAccount, serverDb, signedInClient } from '../helpers/api-client';
 
 const CALLERS = ['anonymous', 'outsider', 'viewer', 'crew', 'manager', 'owner'] as const;
 type Caller = (typeof CALLERS)[number];
-type Context = { propertyId: number; targetUserId: number; elevationModelId: number; runId: number; modelId?: number; fenceId?: number; trackId?: number; crossingId?: number; paddockId?: number; invitationId?: number; token?: string; orderId?: number; itemId?: number };
+type Context = { propertyId: number; targetUserId: number; elevationModelId: number; runId: number; modelId?: number; fenceId?: number; trackId?: number; crossingId?: number; paddockId?: number; invitationId?: number; token?: string; orderId?: number; itemId?: number; roundId?: number; checkId?: number; photoId?: number };
 type Entry = {
   expect: Record<Caller, number>;
   body?: (context: Context) => Promise<unknown> | unknown;
   /** A file body instead of JSON. */
   file?: { bytes: Uint8Array; type: string; query: string };
+  /** A multipart form body instead of JSON, made per request. */
+  form?: (context: Context) => Promise<FormData>;
   /** A query string for the route. */
   query?: string;
   /** Sets up what one request needs (e.g. a run that is still queued) and overrides route parameters. */
@@ -151,6 +154,36 @@ async function idleModel(context: Context): Promise<Partial<Context>> {
   throw new Error('terrain runs did not finish');
 }
 
+/** A crossing the property has now: a terrain run redraws the crossings, so an id read earlier may be gone. */
+async function currentCrossing(context: Context): Promise<Partial<Context>> {
+  const row = await serverDb()('crossings').where({ property_id: context.propertyId }).orderBy('id', 'desc').first('id');
+  return { crossingId: row.id };
+}
+
+/** A round of its own (a rain event on the whole property, recorded by the owner) with its first check. */
+async function spareRound(context: Context): Promise<Partial<Context>> {
+  const { body } = await clients.owner.json<{ round: { id: number; checks: { id: number }[] } }>('POST', `/api/properties/${context.propertyId}/rain-events`, { fellOn: '2026-11-20', rainfallMm: 30, scope: 'property' });
+  return { roundId: body.round.id, checkId: body.round.checks[0]?.id ?? 0 };
+}
+
+const MATRIX_PHOTO = await sharp({ create: { width: 32, height: 24, channels: 3, background: '#8a6a4a' } }).jpeg().toBuffer();
+
+function photoForm(checkId: number | undefined): FormData {
+  const form = new FormData();
+  form.set('checkId', String(checkId ?? 0));
+  form.set('photo', new File([new Uint8Array(MATRIX_PHOTO)], 'photo.jpg', { type: 'image/jpeg' }));
+  return form;
+}
+
+/** A photo of its own, uploaded by the owner to a spare round's first check. */
+async function sparePhoto(context: Context): Promise<Partial<Context>> {
+  const round = await spareRound(context);
+  const encoded = new Response(photoForm(round.checkId));
+  const response = await clients.owner.request('POST', `/api/properties/${context.propertyId}/photos`, new Uint8Array(await encoded.arrayBuffer()), { 'Content-Type': encoded.headers.get('content-type')! });
+  const body = (await response.json()) as { photo: { id: number } };
+  return { ...round, photoId: body.photo.id };
+}
+
 const everyone = (status: number, anonymous = 401): Record<Caller, number> => ({
   anonymous, outsider: status, viewer: status, crew: status, manager: status, owner: status,
 });
@@ -258,6 +291,15 @@ const MATRIX: Record<string, Entry> = {
   'POST /api/properties/[id]/terrain-runs/[runId]/cancel': { expect: atLeast('manager', 200), prepare: queuedRun },
   'GET /api/properties/[id]/terrain-runs/[runId]/contours.geojson': { expect: atLeast('viewer', 200) },
   'GET /api/properties/[id]/terrain-runs/[runId]/hillshade.png': { expect: atLeast('viewer', 200) },
+  'GET /api/properties/[id]/rain-events': { expect: atLeast('viewer', 200) },
+  'POST /api/properties/[id]/rain-events': { expect: atLeast('manager', 201), body: () => ({ fellOn: '2026-11-21', rainfallMm: 25, scope: 'property' }) },
+  'GET /api/properties/[id]/inspection-rounds/[roundId]': { expect: atLeast('viewer', 200), prepare: spareRound },
+  'PATCH /api/properties/[id]/inspection-rounds/[roundId]': { expect: atLeast('manager', 200), prepare: spareRound, body: () => ({ status: 'closed', version: 1 }) },
+  'PATCH /api/properties/[id]/inspection-rounds/[roundId]/checks/[checkId]': { expect: atLeast('crew', 200), prepare: spareRound, body: () => ({ status: 'intact', version: 1 }) },
+  'POST /api/properties/[id]/photos': { expect: atLeast('crew', 201), prepare: spareRound, form: async ({ checkId }) => photoForm(checkId) },
+  'GET /api/properties/[id]/photos/[photoId]': { expect: atLeast('viewer', 200), prepare: sparePhoto },
+  'GET /api/properties/[id]/crossings/[crossingId]/inspections': { expect: atLeast('viewer', 200), prepare: currentCrossing },
+  'GET /api/properties/[id]/crossings/redesign-flags': { expect: atLeast('viewer', 200) },
 };
 
 /** Every "METHOD /api/route" exported by a file under src/pages/api. */
@@ -296,7 +338,10 @@ function fill(route: string, context: Context): string {
     .replace('[invitationId]', String(context.invitationId ?? 0))
     .replace('[orderId]', String(context.orderId ?? 0))
     .replace('[itemId]', String(context.itemId ?? 0))
-    .replace('[token]', context.token ?? 'none');
+    .replace('[token]', context.token ?? 'none')
+    .replace('[roundId]', String(context.roundId ?? 0))
+    .replace('[checkId]', String(context.checkId ?? 0))
+    .replace('[photoId]', String(context.photoId ?? 0));
 }
 
 const clients = {} as Record<Caller, TestClient>;
@@ -349,7 +394,10 @@ describe('role matrix', () => {
       await resetTarget();
       const here = { ...context, ...(entry.prepare ? await entry.prepare(context) : {}) };
       const requestMethod = method === 'ALL' ? 'GET' : method;
-      const response = entry.file
+      const form = entry.form ? new Response(await entry.form(here)) : undefined;
+      const response = form
+        ? await clients[caller].request(requestMethod, fill(route, here), new Uint8Array(await form.arrayBuffer()), { 'Content-Type': form.headers.get('content-type')! })
+        : entry.file
         ? await clients[caller].request(requestMethod, fill(route, here) + entry.file.query, entry.file.bytes, { 'Content-Type': entry.file.type })
         : await clients[caller].request(requestMethod, fill(route, here) + (entry.query ?? ''), entry.body ? await entry.body(here) : undefined);
       expect(response.status).toBe(expected);

@@ -15,6 +15,7 @@ import {
   crossingDotLayer,
   crossingHitLayer,
   crossingMarkLayer,
+  crossingRedesignLayer,
   crossingRingLayer,
   fenceCasingLayer,
   fenceLabelLayer,
@@ -138,6 +139,7 @@ export default function PlanOverlay({ fenceLines, crossings, selectedCrossingId,
       <Source id={CROSSINGS_SOURCE_ID} type="geojson" data={crossings ?? EMPTY}>
         <Layer {...selectedLayers[0]} />
         <Layer {...selectedLayers[1]} />
+        <Layer {...crossingRedesignLayer} />
         <Layer {...crossingRingLayer} />
         <Layer {...crossingDotLayer} />
         <Layer {...crossingMarkLayer} />

@@ -32,6 +32,23 @@ export const crossingRingLayer: CircleLayer = {
   },
 };
 
+/**
+ * Crossings flagged for redesign (failed in two inspection rounds): a broad ring well outside the
+ * dot and its dark ring, so the flag reads by shape as well as by colour.
+ */
+export const crossingRedesignLayer: CircleLayer = {
+  id: 'plan-crossing-redesign',
+  type: 'circle',
+  source: CROSSINGS_SOURCE_ID,
+  filter: ['==', ['get', 'redesign'], true] as Filter,
+  paint: {
+    'circle-radius': byZoom(11, 11, 14, 15, 16, 16, 18, 13),
+    'circle-opacity': 0,
+    'circle-stroke-color': PLAN_COLOURS.redesign,
+    'circle-stroke-width': 3.5,
+  },
+};
+
 /** Designed crossings are filled in their class colour; the rest are a hollow ring in it. */
 export const crossingDotLayer: CircleLayer = {
   id: 'plan-crossing-dots',

@@ -18,6 +18,7 @@ export {
   crossingDotLayer,
   crossingHitLayer,
   crossingMarkLayer,
+  crossingRedesignLayer,
   crossingRingLayer,
   selectedCrossingLayers,
 } from './crossing-layers';

@@ -31,6 +31,8 @@ export const PLAN_COLOURS = {
   floodgate: '#1f5f99',
   /** Breakaway ties (Okabe–Ito reddish purple). */
   tie: '#CC79A7',
+  /** The broad outer ring of a crossing flagged for redesign by its inspection history. */
+  redesign: '#7a1f6a',
 } as const;
 
 /** How each fence status is drawn: colour, width and dash pattern (in line widths; empty is solid). */

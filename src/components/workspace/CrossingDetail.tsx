@@ -9,6 +9,7 @@ import { CrossingInputsForm } from './crossing/CrossingInputsForm';
 import { DesignProblem } from './crossing/DesignProblem';
 import { DesignSections } from './crossing/DesignSections';
 import { FloodSection } from './crossing/FloodSection';
+import { InspectionHistory } from './crossing/InspectionHistory';
 import { isDesigned } from './crossing/is-designed';
 import { KindNote } from './crossing/KindNote';
 import { RealignmentBox, type RealignmentPreview } from './crossing/RealignmentBox';
@@ -98,6 +99,8 @@ export default function CrossingDetail({ propertyId, summary, canEdit, onClose, 
           {canChangeInputs && <CrossingInputsForm key={crossing.id} propertyId={propertyId} crossing={crossing} formRef={formRef} />}
         </>
       ) : null}
+
+      <InspectionHistory propertyId={propertyId} crossingId={summary.id} />
 
       <SafetyCautions cautions={design?.cautions} />
     </section>

@@ -125,6 +125,13 @@ export default function LayerToggles({ visible, onChange, showTerrain, fenceStat
                 <CrossingSymbol angleClass="fair" designed={false} />
                 Hollow: no design (open it for why)
               </li>
+              <li className="flex items-center gap-2">
+                <svg aria-hidden="true" width="24" height="24" viewBox="0 0 24 24" className="shrink-0">
+                  <circle cx="12" cy="12" r="10" fill="none" stroke={PLAN_COLOURS.redesign} strokeWidth="3" />
+                  <circle cx="12" cy="12" r="5" fill={PLAN_COLOURS.angle.good} stroke={PLAN_COLOURS.casing} strokeWidth="1.5" />
+                </svg>
+                Wide outer ring: failed in two floods, reconsider its style
+              </li>
             </ul>
           </div>
         )}

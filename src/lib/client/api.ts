@@ -17,6 +17,8 @@ import type { Invitation } from '../schemas/invitation';
 import type { Member, PropertySummary } from '../schemas/property';
 import type { ElevationModelView, TerrainRun } from '../schemas/terrain';
 import type { CreateWorkOrderInput, ItemState, UpdateWorkOrderInput, WorkOrder, WorkOrderProgress, WorkOrderSheet } from '../schemas/work-order';
+import type { CheckView, CrossingInspectionsView, PhotoView, RainEventView, RoundView } from '../schemas/inspection';
+import type { CheckStatus } from '../crossings/inspection-statuses';
 
 /** An error answer from the API, with the message and per-field problems it carried. */
 export class ApiError extends Error {
@@ -125,6 +127,18 @@ export const api = {
   getCosts: (propertyId: number) => request<{ costs: CostsView }>('GET', `/api/properties/${propertyId}/costs`),
   elevationAt: (propertyId: number, [lon, lat]: [number, number]) =>
     request<ElevationAtPoint>('GET', `/api/properties/${propertyId}/elevation?${new URLSearchParams({ lon: String(lon), lat: String(lat) })}`),
+  listRainEvents: (propertyId: number) => request<{ rainEvents: RainEventView[] }>('GET', `/api/properties/${propertyId}/rain-events`),
+  /** Records a rain event; the answer is the inspection round it opened. */
+  recordRainEvent: (propertyId: number, input: { fellOn: string; rainfallMm: number; scope: 'property' | 'paddocks'; paddockIds: number[]; note: string }) =>
+    request<{ round: RoundView }>('POST', `/api/properties/${propertyId}/rain-events`, input),
+  getRound: (propertyId: number, roundId: number) => request<{ round: RoundView }>('GET', `/api/properties/${propertyId}/inspection-rounds/${roundId}`),
+  updateRound: (propertyId: number, roundId: number, input: { status: 'open' | 'closed'; version: number }) =>
+    request<{ round: RoundView }>('PATCH', `/api/properties/${propertyId}/inspection-rounds/${roundId}`, input),
+  /** Records a crossing's status and note; `version` is the one read (a 409 ApiError when someone recorded it meanwhile). */
+  updateCheck: (propertyId: number, roundId: number, checkId: number, input: { status: CheckStatus; note: string; version: number }) =>
+    request<{ check: CheckView }>('PATCH', `/api/properties/${propertyId}/inspection-rounds/${roundId}/checks/${checkId}`, input),
+  crossingInspections: (propertyId: number, crossingId: number) =>
+    request<{ inspections: CrossingInspectionsView }>('GET', `/api/properties/${propertyId}/crossings/${crossingId}/inspections`),
 };
 
 export type UploadedElevationModel = { elevationModel: ElevationModelView; run: TerrainRun; warnings: string[] };
@@ -216,3 +230,14 @@ export const workOrderApi = {
       `/api/properties/${propertyId}/work-orders/progress`,
     ),
 };
+/** Sends a photo of a check as a form upload; the server checks it is a photo and strips its metadata unless `keepLocation`. */
+export async function uploadPhoto(propertyId: number, checkId: number, file: File, keepLocation: boolean): Promise<{ photo: PhotoView }> {
+  const form = new FormData();
+  form.set('checkId', String(checkId));
+  form.set('keepLocation', keepLocation ? 'true' : 'false');
+  form.set('photo', file);
+  const response = await fetch(`/api/properties/${propertyId}/photos`, { method: 'POST', credentials: 'same-origin', body: form });
+  const data = (await response.json().catch(() => ({}))) as { photo?: PhotoView; error?: string; fields?: Record<string, string> };
+  if (response.status !== 201 || !data.photo) throw new ApiError(response.status, data.error ?? `The server answered ${response.status}.`, data.fields);
+  return { photo: data.photo };
+}

@@ -32,6 +32,8 @@ export type CrossingSummaryView = {
   upstreamAreaHa: number | null;
   streamOrder: number | null;
   designStatus: DesignStatus;
+  /** Failed in two inspection rounds: the crossing's style should be reconsidered. */
+  redesign?: boolean;
   provisional: boolean;
   style: CrossingStyle | null;
   floodLevelM: number | null;

@@ -30,6 +30,13 @@ const schema = z.object({
   DEV_MAIL_PAGE: z.enum(['true', 'false', '1', '0', '']).default('').transform((value) => value === 'true' || value === '1'),
   INVITATION_EXPIRY_DAYS: z.coerce.number().positive().max(90).default(7),
   WORK_ORDER_LINK_EXPIRY_DAYS: z.coerce.number().positive().max(365).default(30),
+  MAX_PHOTO_BYTES: z.coerce.number().int().positive().default(20 * 1024 * 1024),
+  PHOTO_S3_BUCKET: z.string().optional(),
+  PHOTO_S3_ENDPOINT: z.string().url().optional().or(z.literal('')),
+  PHOTO_S3_REGION: z.string().optional(),
+  PHOTO_S3_ACCESS_KEY_ID: z.string().optional(),
+  PHOTO_S3_SECRET_ACCESS_KEY: z.string().optional(),
+  PHOTO_S3_FORCE_PATH_STYLE: z.enum(['true', 'false', '1', '0', '']).default('').transform((value) => value === 'true' || value === '1'),
 });
 
 export type AppConfig = {
@@ -55,6 +62,19 @@ export type AppConfig = {
   invitationExpiryMs: number;
   /** How long a contractor's read-only work order link works after the order is sent. */
   workOrderLinkExpiryMs: number;
+  /** The largest inspection photo accepted, in bytes. */
+  maxPhotoBytes: number;
+  /** Where photos are kept: an S3 bucket when PHOTO_S3_BUCKET is set, else DATA_DIR/photos. */
+  photoS3: PhotoS3Config | undefined;
+};
+
+export type PhotoS3Config = {
+  bucket: string;
+  endpoint: string | undefined;
+  region: string;
+  accessKeyId: string | undefined;
+  secretAccessKey: string | undefined;
+  forcePathStyle: boolean;
 };
 
 let cached: AppConfig | undefined;
@@ -99,6 +119,17 @@ export function parseConfig(variables: Record<string, string | undefined>): AppC
     devMailPage: env.DEV_MAIL_PAGE || env.NODE_ENV !== 'production',
     invitationExpiryMs: env.INVITATION_EXPIRY_DAYS * 24 * 60 * 60_000,
     workOrderLinkExpiryMs: env.WORK_ORDER_LINK_EXPIRY_DAYS * 24 * 60 * 60_000,
+    maxPhotoBytes: env.MAX_PHOTO_BYTES,
+    photoS3: env.PHOTO_S3_BUCKET
+      ? {
+          bucket: env.PHOTO_S3_BUCKET,
+          endpoint: env.PHOTO_S3_ENDPOINT || undefined,
+          region: env.PHOTO_S3_REGION || 'us-east-1',
+          accessKeyId: env.PHOTO_S3_ACCESS_KEY_ID || undefined,
+          secretAccessKey: env.PHOTO_S3_SECRET_ACCESS_KEY || undefined,
+          forcePathStyle: env.PHOTO_S3_FORCE_PATH_STYLE,
+        }
+      : undefined,
   };
 }
 

@@ -18,6 +18,7 @@ const EXPENSIVE_ROUTES: { method: string; pattern: RegExp; what: string }[] = [
   { method: '*', pattern: /^\/api\/properties\/[^/]+\/crossings\/[^/]+\/realignment\/?$/, what: 'realignments' },
   // Each send builds the order's GPX and GeoJSON and queues an e-mail with them.
   { method: 'POST', pattern: /^\/api\/properties\/[^/]+\/work-orders\/[^/]+\/send\/?$/, what: 'work order sends' },
+  { method: 'POST', pattern: /^\/api\/properties\/[^/]+\/photos\/?$/, what: 'photo uploads' },
 ];
 
 /** What an expensive route does (for the message), or undefined for every other route. */

@@ -3,7 +3,7 @@ import { TRACK_PADDOCK_COLOURS, paddockEdgeLayer, paddockFillLayer, trackCasingL
 import { simulate, type Deficiency } from '@bjornlu/colorblind';
 import { converter, differenceCiede2000, formatHex, interpolate, wcagContrast } from 'culori';
 import { describe, expect, it } from 'vitest';
-import { crossingDotLayer, crossingRingLayer } from '../../../src/components/map/crossing-layers';
+import { crossingDotLayer, crossingRedesignLayer, crossingRingLayer } from '../../../src/components/map/crossing-layers';
 import { fenceCasingLayer, fenceStatusLayers, realignCasingLayer, realignLineLayer } from '../../../src/components/map/fence-layers';
 import { propertyExtentFill } from '../../../src/components/map/layers';
 import { LAYOUT_ICON_COLOURS, layoutMarkerLayer, layoutPostLayer } from '../../../src/components/map/layout-layers';
@@ -145,6 +145,7 @@ const GROUPS: Group[] = [
         }),
       })),
       { name: 'no angle', colour: PLAN_COLOURS.angleNone, against: onGround },
+      { name: 'redesign ring', colour: paintOf(crossingRedesignLayer)['circle-stroke-color'] as string, against: onGround },
       { name: 'drainage', colour: TERRAIN_COLOURS.drainage, against: { colours: casingOf(drainageCasingLayer), why: 'drainage lines run on a wider pale casing', holds: casingWider(drainageCasingLayer, drainageLineLayer) } },
     ],
     apartByShape: [

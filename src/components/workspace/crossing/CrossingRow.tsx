@@ -32,6 +32,11 @@ export function CrossingRow({ crossing, selected, onSelect }: { crossing: Crossi
         </span>
       </span>
       {notes.length > 0 && <span className="text-xs text-bark-500">{notes.join(' · ')}</span>}
+      {crossing.redesign && (
+        <span data-testid="redesign-flag" className="self-start rounded border-2 border-[#7a1f6a] px-1.5 text-xs font-semibold text-[#7a1f6a]">
+          Failed in two floods: reconsider its style
+        </span>
+      )}
     </button>
   );
 }
