@@ -62,7 +62,7 @@ async function planIndex(propertyId: number, trx: Knex): Promise<PlanIndex> {
   const crossingRows: { id: number; fence_line_id: number; chainage_m: number; lon: number; lat: number; style: string | null }[] = await trx('crossings')
     .where({ property_id: propertyId })
     .orderBy([{ column: 'fence_line_id' }, { column: 'chainage_m' }, { column: 'id' }])
-    .select('id', 'fence_line_id', 'chainage_m', 'lon', 'lat', trx.raw("json_extract(design, '$.layout.style') as style"));
+    .select('id', 'fence_line_id', 'chainage_m', 'lon', 'lat', 'design_style as style');
   const crossings: PlanIndex['crossings'] = new Map();
   const alongFence = new Map<number, number>();
   for (const row of crossingRows) {
