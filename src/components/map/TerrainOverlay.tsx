@@ -1,12 +1,12 @@
-import type { FeatureCollection } from 'geojson';
 import { Layer, Source } from 'react-map-gl/maplibre';
+import { DRAINAGE_TILE_MAX_ZOOM } from '../../lib/geo/drainage-tiles';
 import {
-  DRAINAGE_SOURCE_ID,
   contourLabelLayer,
   contourLineLayer,
   contoursSourceId,
   drainageCasingLayer,
   drainageLineLayer,
+  drainageSourceId,
   hillshadeLayer,
   hillshadeSourceId,
 } from './terrain-layers';
@@ -17,7 +17,6 @@ export type TerrainVisibility = { hillshade: boolean; contours: boolean; drainag
 type Props = {
   propertyId: number;
   runs: TerrainRunLayer[];
-  drainage: FeatureCollection | null;
   visible: TerrainVisibility;
   /** Whether the property's extent is drawn: terrain then goes under its outline and name. */
   underExtent: boolean;
@@ -27,11 +26,13 @@ type Props = {
 const EXTENT_FILL = 'property-extent-fill';
 const EXTENT_LABEL = 'property-extent-label';
 
-/** Hillshade and contours of each finished terrain run, and the property's drainage lines. */
-export default function TerrainOverlay({ propertyId, runs, drainage, visible, underExtent }: Props) {
+/** Hillshade, contours and drainage lines of each finished terrain run. */
+export default function TerrainOverlay({ propertyId, runs, visible, underExtent }: Props) {
   const belowExtent = underExtent ? EXTENT_FILL : undefined;
   const belowName = underExtent ? EXTENT_LABEL : undefined;
   const base = `/api/properties/${propertyId}/terrain-runs`;
+  // Tiles are fetched by MapLibre's workers, which need a full address.
+  const origin = window.location.origin;
   return (
     <>
       {visible.hillshade &&
@@ -53,12 +54,20 @@ export default function TerrainOverlay({ propertyId, runs, drainage, visible, un
             <Layer {...contourLabelLayer(run.id)} beforeId={belowExtent} />
           </Source>
         ))}
-      {visible.drainage && drainage && (
-        <Source id={DRAINAGE_SOURCE_ID} type="geojson" data={drainage}>
-          <Layer {...drainageCasingLayer} beforeId={belowName} />
-          <Layer {...drainageLineLayer} beforeId={belowName} />
-        </Source>
-      )}
+      {visible.drainage &&
+        runs.map((run) => (
+          // Vector tiles: only the tiles in view are fetched, already clipped and simplified for their zoom.
+          <Source
+            key={`d${run.id}`}
+            id={drainageSourceId(run.id)}
+            type="vector"
+            tiles={[`${origin}${base}/${run.id}/drainage/{z}/{x}/{y}`]}
+            maxzoom={DRAINAGE_TILE_MAX_ZOOM}
+          >
+            <Layer {...drainageCasingLayer(run.id)} beforeId={belowName} />
+            <Layer {...drainageLineLayer(run.id)} beforeId={belowName} />
+          </Source>
+        ))}
     </>
   );
 }

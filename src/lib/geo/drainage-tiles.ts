@@ -1,0 +1,88 @@
+import GeoJSONVT from 'geojson-vt';
+import type { Feature, FeatureCollection, LineString } from 'geojson';
+import vtpbf from 'vt-pbf';
+
+/** One drainage line to tile: `[lon, lat]` in WGS84 degrees (RFC 7946) and its Strahler order. */
+export type DrainageTileLine = { id: number; streamOrder: number; coordinates: readonly (readonly [number, number])[] };
+
+/** The layer name inside every drainage tile (a map layer's `source-layer`). */
+export const DRAINAGE_TILE_LAYER = 'drainage';
+/** Tiles are cut to this zoom; the map draws closer zooms from them (overzoom). */
+export const DRAINAGE_TILE_MAX_ZOOM = 14;
+/** Tile coordinates are checked up to this zoom (the deepest a slippy-map client asks for). */
+export const TILE_ZOOM_LIMIT = 24;
+
+/**
+ * The smallest stream order shown from each zoom on: order 3 and up always, order 2 from zoom 12,
+ * all from 13. A whole station's headwaters at once are a blur, and drawing them is most of a
+ * first load. The map's layer filter and the tiles share these steps, so a tile carries nothing
+ * its zoom hides.
+ */
+export const DRAINAGE_ORDER_STEPS: readonly { fromZoom: number; minOrder: number }[] = [
+  { fromZoom: 0, minOrder: 3 },
+  { fromZoom: 12, minOrder: 2 },
+  { fromZoom: 13, minOrder: 1 },
+];
+
+/** The smallest stream order shown at a zoom (integer zoom of a tile, or a map zoom). */
+export function minStreamOrderAt(zoom: number): number {
+  let minOrder = DRAINAGE_ORDER_STEPS[0]!.minOrder;
+  for (const step of DRAINAGE_ORDER_STEPS) if (zoom >= step.fromZoom) minOrder = step.minOrder;
+  return minOrder;
+}
+
+/** Vector tiles of a set of drainage lines. */
+export type DrainageTiles = {
+  /**
+   * The Mapbox Vector Tile (spec 2.1) at z/x/y (slippy-map tile numbers, y from the north), one
+   * layer {@link DRAINAGE_TILE_LAYER} with each line's `id` as the feature id and `streamOrder`,
+   * or null when no line shown at that zoom crosses the tile.
+   * @throws RangeError when z is not an integer in 0–{@link TILE_ZOOM_LIMIT} or x, y not in 0…2^z − 1
+   */
+  tile(z: number, x: number, y: number): Uint8Array | null;
+};
+
+/**
+ * Cuts drainage lines into vector tiles with geojson-vt (clipping with a buffer, Douglas–Peucker
+ * simplification per zoom, 4096-unit extent) and encodes them with vt-pbf. One tile index per
+ * order step, each built on first use: the first load of a station at low zoom tiles only its
+ * bigger channels. Tiles are cut on demand and kept by geojson-vt. Input is not mutated.
+ * @throws TypeError when a line has fewer than two points or a non-finite coordinate
+ */
+export function createDrainageTiles(lines: readonly DrainageTileLine[]): DrainageTiles {
+  for (const line of lines) {
+    if (line.coordinates.length < 2 || !line.coordinates.every(([lon, lat]) => Number.isFinite(lon) && Number.isFinite(lat))) {
+      throw new TypeError(`Drainage line ${line.id} needs at least two points of finite [lon, lat].`);
+    }
+  }
+  const indexes = new Map<number, GeoJSONVT>();
+  const indexFor = (minOrder: number): GeoJSONVT => {
+    let index = indexes.get(minOrder);
+    if (!index) {
+      const features: Feature<LineString>[] = lines
+        .filter((line) => line.streamOrder >= minOrder)
+        .map((line) => ({
+          type: 'Feature',
+          id: line.id,
+          properties: { streamOrder: line.streamOrder },
+          geometry: { type: 'LineString', coordinates: line.coordinates.map(([lon, lat]) => [lon, lat]) },
+        }));
+      const collection: FeatureCollection<LineString> = { type: 'FeatureCollection', features };
+      index = new GeoJSONVT(collection, { maxZoom: DRAINAGE_TILE_MAX_ZOOM, indexMaxZoom: 5, tolerance: 3, extent: 4096, buffer: 64 });
+      indexes.set(minOrder, index);
+    }
+    return index;
+  };
+  return {
+    tile(z, x, y) {
+      if (!Number.isInteger(z) || z < 0 || z > TILE_ZOOM_LIMIT) throw new RangeError(`Tile zoom must be a whole number from 0 to ${TILE_ZOOM_LIMIT}.`);
+      const side = 2 ** z;
+      if (!Number.isInteger(x) || !Number.isInteger(y) || x < 0 || y < 0 || x >= side || y >= side) {
+        throw new RangeError(`At zoom ${z}, tile x and y must be whole numbers from 0 to ${side - 1}.`);
+      }
+      const tile = indexFor(minStreamOrderAt(z)).getTile(z, x, y);
+      if (!tile || tile.features.length === 0) return null;
+      return vtpbf.fromGeojsonVt({ [DRAINAGE_TILE_LAYER]: tile }, { version: 2, extent: 4096 });
+    },
+  };
+}
