@@ -227,6 +227,7 @@ const MATRIX: Record<string, Entry> = {
   'POST /api/properties/[id]/terrain-runs/[runId]/cancel': { expect: atLeast('manager', 200), prepare: queuedRun },
   'GET /api/properties/[id]/terrain-runs/[runId]/contours.geojson': { expect: atLeast('viewer', 200) },
   'GET /api/properties/[id]/terrain-runs/[runId]/hillshade.png': { expect: atLeast('viewer', 200) },
+  'GET /api/properties/[id]/terrain-runs/[runId]/drainage/[z]/[x]/[y]': { expect: atLeast('viewer', 200) },
 };
 
 /** Every "METHOD /api/route" exported by a file under src/pages/api. */
@@ -262,8 +263,21 @@ function fill(route: string, context: Context): string {
     .replace('[trackId]', String(context.trackId ?? 0))
     .replace('[crossingId]', String(context.crossingId ?? 0))
     .replace('[paddockId]', String(context.paddockId ?? 0))
-    .replace('[invitationId]', String(context.invitationId ?? 0));
+    .replace('[invitationId]', String(context.invitationId ?? 0))
+    .replace('[z]/[x]/[y]', `${CREEK_TILE.z}/${CREEK_TILE.x}/${CREEK_TILE.y}`);
 }
+
+/**
+ * The zoom-14 tile over a point of the demo's main creek (data-samples manifest), which holds
+ * drainage lines; slippy-map tile numbers from OpenStreetMap wiki, "Slippy map tilenames".
+ */
+const CREEK_TILE = (() => {
+  const creeks = (JSON.parse(readFileSync('data-samples/saltbush-rise.json', 'utf8')) as { creeks: { name: string; centrelineLonLat: [number, number][] }[] }).creeks;
+  const line = creeks.find((creek) => /main/i.test(creek.name))!.centrelineLonLat;
+  const [lon, lat] = line[Math.floor(line.length / 2)]!;
+  const n = 2 ** 14;
+  return { z: 14, x: Math.floor(((lon + 180) / 360) * n), y: Math.floor(((1 - Math.asinh(Math.tan((lat * Math.PI) / 180)) / Math.PI) / 2) * n) };
+})();
 
 const clients = {} as Record<Caller, TestClient>;
 const context: Context = { propertyId: 0, targetUserId: 0, elevationModelId: 0, runId: 0 };

@@ -1,6 +1,8 @@
-import { Layer, Source } from 'react-map-gl/maplibre';
-import { DRAINAGE_TILE_MAX_ZOOM } from '../../lib/geo/drainage-tiles';
+import { useEffect, useState } from 'react';
+import { Layer, Source, useMap } from 'react-map-gl/maplibre';
+import { DRAINAGE_TILE_MAX_ZOOM } from '../../lib/geo/drainage-tile-rules';
 import {
+  CONTOURS_MIN_ZOOM,
   contourLabelLayer,
   contourLineLayer,
   contoursSourceId,
@@ -33,6 +35,7 @@ export default function TerrainOverlay({ propertyId, runs, visible, underExtent 
   const base = `/api/properties/${propertyId}/terrain-runs`;
   // Tiles are fetched by MapLibre's workers, which need a full address.
   const origin = window.location.origin;
+  const contoursWanted = useZoomReached(CONTOURS_MIN_ZOOM);
   return (
     <>
       {visible.hillshade &&
@@ -48,6 +51,7 @@ export default function TerrainOverlay({ propertyId, runs, visible, underExtent 
           </Source>
         ))}
       {visible.contours &&
+        contoursWanted &&
         runs.map((run) => (
           <Source key={`c${run.id}`} id={contoursSourceId(run.id)} type="geojson" data={`${base}/${run.id}/contours.geojson`}>
             <Layer {...contourLineLayer(run.id, run.contourIntervalM)} beforeId={belowExtent} />
@@ -70,4 +74,22 @@ export default function TerrainOverlay({ propertyId, runs, visible, underExtent 
         ))}
     </>
   );
+}
+
+/**
+ * Whether the map has been at `zoom` or closer. The contours (megabytes of GeoJSON on a big
+ * station) are fetched only then: a first view of the whole property does not draw them.
+ */
+function useZoomReached(zoom: number): boolean {
+  const { current: mapRef } = useMap();
+  const [reached, setReached] = useState(() => (mapRef?.getZoom() ?? 0) >= zoom);
+  useEffect(() => {
+    const map = mapRef?.getMap();
+    if (!map || reached) return;
+    const check = () => map.getZoom() >= zoom && setReached(true);
+    check();
+    map.on('zoomend', check);
+    return () => void map.off('zoomend', check);
+  }, [mapRef, reached, zoom]);
+  return reached;
 }

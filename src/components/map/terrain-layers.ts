@@ -1,6 +1,6 @@
 import type { ExpressionSpecification } from '@maplibre/maplibre-gl-style-spec';
 import type { LayerSpecification } from 'maplibre-gl';
-import { DRAINAGE_ORDER_STEPS, DRAINAGE_TILE_LAYER } from '../../lib/geo/drainage-tiles';
+import { DRAINAGE_ORDER_STEPS, DRAINAGE_TILE_LAYER } from '../../lib/geo/drainage-tile-rules';
 import { MAP_COLOURS, MAP_FONTS } from './theme';
 
 type LineLayer = Extract<LayerSpecification, { type: 'line' }>;
@@ -27,6 +27,9 @@ export function hillshadeLayer(runId: number): RasterLayer {
   };
 }
 
+/** Contours show from this zoom: further out they are a brown haze over the whole property. */
+export const CONTOURS_MIN_ZOOM = 11;
+
 /** Contour lines: thin bark-brown lines, every fifth level a little heavier. */
 export function contourLineLayer(runId: number, intervalM: number): LineLayer {
   const isIndex: LineLayer['filter'] = ['==', ['%', ['round', ['/', ['get', 'elevationM'], intervalM]], 5], 0];
@@ -34,7 +37,7 @@ export function contourLineLayer(runId: number, intervalM: number): LineLayer {
     id: `contours-${runId}`,
     type: 'line',
     source: contoursSourceId(runId),
-    minzoom: 11,
+    minzoom: CONTOURS_MIN_ZOOM,
     paint: {
       'line-color': TERRAIN_COLOURS.contour,
       'line-opacity': 0.55,

@@ -222,7 +222,8 @@ function Workspace({ propertyId, propertyName, extentWgs84, canEdit, children }:
           onFeatureClick={editing ? undefined : onFeatureClick}
           groundHeightAt={runs.length > 0 ? groundHeightAt : undefined}
         >
-          <TerrainOverlay propertyId={propertyId} runs={planArrived.current ? runs : []} visible={visible} underExtent={extent !== null} />
+          {/* The terrain goes on as soon as the runs are known: its tiles and image load while the plan is still on its way. */}
+          <TerrainOverlay propertyId={propertyId} runs={runs} visible={visible} underExtent={extent !== null} />
           <TracksOverlay tracks={onMap(tracks.data)} paddocks={onMap(paddocks.data)} visible={planVisible} />
           <PlanOverlay
             fenceLines={onMap(fenceLines.data)}

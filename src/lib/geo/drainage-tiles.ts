@@ -1,35 +1,12 @@
 import GeoJSONVT from 'geojson-vt';
 import type { Feature, FeatureCollection, LineString } from 'geojson';
 import vtpbf from 'vt-pbf';
+import { DRAINAGE_TILE_LAYER, DRAINAGE_TILE_MAX_ZOOM, minStreamOrderAt, TILE_ZOOM_LIMIT } from './drainage-tile-rules';
+
+export { DRAINAGE_TILE_LAYER, DRAINAGE_TILE_MAX_ZOOM, minStreamOrderAt, TILE_ZOOM_LIMIT };
 
 /** One drainage line to tile: `[lon, lat]` in WGS84 degrees (RFC 7946) and its Strahler order. */
 export type DrainageTileLine = { id: number; streamOrder: number; coordinates: readonly (readonly [number, number])[] };
-
-/** The layer name inside every drainage tile (a map layer's `source-layer`). */
-export const DRAINAGE_TILE_LAYER = 'drainage';
-/** Tiles are cut to this zoom; the map draws closer zooms from them (overzoom). */
-export const DRAINAGE_TILE_MAX_ZOOM = 14;
-/** Tile coordinates are checked up to this zoom (the deepest a slippy-map client asks for). */
-export const TILE_ZOOM_LIMIT = 24;
-
-/**
- * The smallest stream order shown from each zoom on: order 3 and up always, order 2 from zoom 12,
- * all from 13. A whole station's headwaters at once are a blur, and drawing them is most of a
- * first load. The map's layer filter and the tiles share these steps, so a tile carries nothing
- * its zoom hides.
- */
-export const DRAINAGE_ORDER_STEPS: readonly { fromZoom: number; minOrder: number }[] = [
-  { fromZoom: 0, minOrder: 3 },
-  { fromZoom: 12, minOrder: 2 },
-  { fromZoom: 13, minOrder: 1 },
-];
-
-/** The smallest stream order shown at a zoom (integer zoom of a tile, or a map zoom). */
-export function minStreamOrderAt(zoom: number): number {
-  let minOrder = DRAINAGE_ORDER_STEPS[0]!.minOrder;
-  for (const step of DRAINAGE_ORDER_STEPS) if (zoom >= step.fromZoom) minOrder = step.minOrder;
-  return minOrder;
-}
 
 /** Vector tiles of a set of drainage lines. */
 export type DrainageTiles = {
