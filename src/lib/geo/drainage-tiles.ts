@@ -21,35 +21,26 @@ export type DrainageTiles = {
 
 /**
  * Cuts drainage lines into vector tiles with geojson-vt (clipping with a buffer, Douglas–Peucker
- * simplification per zoom, 4096-unit extent) and encodes them with vt-pbf. One tile index per
- * order step, each built on first use: the first load of a station at low zoom tiles only its
- * bigger channels. Tiles are cut on demand and kept by geojson-vt. Input is not mutated.
+ * simplification per zoom, 4096-unit extent) and encodes them with vt-pbf. Tiles are cut on
+ * demand and kept by geojson-vt; each leaves out the stream orders its zoom hides
+ * ({@link minStreamOrderAt}), so a caller that serves low zooms may pass only the bigger channels
+ * and build the full set once someone zooms in. Input is not mutated.
  * @throws TypeError when a line has fewer than two points or a non-finite coordinate
  */
 export function createDrainageTiles(lines: readonly DrainageTileLine[]): DrainageTiles {
-  for (const line of lines) {
+  const features: Feature<LineString>[] = lines.map((line) => {
     if (line.coordinates.length < 2 || !line.coordinates.every(([lon, lat]) => Number.isFinite(lon) && Number.isFinite(lat))) {
       throw new TypeError(`Drainage line ${line.id} needs at least two points of finite [lon, lat].`);
     }
-  }
-  const indexes = new Map<number, GeoJSONVT>();
-  const indexFor = (minOrder: number): GeoJSONVT => {
-    let index = indexes.get(minOrder);
-    if (!index) {
-      const features: Feature<LineString>[] = lines
-        .filter((line) => line.streamOrder >= minOrder)
-        .map((line) => ({
-          type: 'Feature',
-          id: line.id,
-          properties: { streamOrder: line.streamOrder },
-          geometry: { type: 'LineString', coordinates: line.coordinates.map(([lon, lat]) => [lon, lat]) },
-        }));
-      const collection: FeatureCollection<LineString> = { type: 'FeatureCollection', features };
-      index = new GeoJSONVT(collection, { maxZoom: DRAINAGE_TILE_MAX_ZOOM, indexMaxZoom: 5, tolerance: 3, extent: 4096, buffer: 64 });
-      indexes.set(minOrder, index);
-    }
-    return index;
-  };
+    return {
+      type: 'Feature',
+      id: line.id,
+      properties: { streamOrder: line.streamOrder },
+      geometry: { type: 'LineString', coordinates: line.coordinates.map(([lon, lat]) => [lon, lat]) },
+    };
+  });
+  const collection: FeatureCollection<LineString> = { type: 'FeatureCollection', features };
+  const index = new GeoJSONVT(collection, { maxZoom: DRAINAGE_TILE_MAX_ZOOM, indexMaxZoom: 5, tolerance: 3, extent: 4096, buffer: 64 });
   return {
     tile(z, x, y) {
       if (!Number.isInteger(z) || z < 0 || z > TILE_ZOOM_LIMIT) throw new RangeError(`Tile zoom must be a whole number from 0 to ${TILE_ZOOM_LIMIT}.`);
@@ -57,9 +48,11 @@ export function createDrainageTiles(lines: readonly DrainageTileLine[]): Drainag
       if (!Number.isInteger(x) || !Number.isInteger(y) || x < 0 || y < 0 || x >= side || y >= side) {
         throw new RangeError(`At zoom ${z}, tile x and y must be whole numbers from 0 to ${side - 1}.`);
       }
-      const tile = indexFor(minStreamOrderAt(z)).getTile(z, x, y);
-      if (!tile || tile.features.length === 0) return null;
-      return vtpbf.fromGeojsonVt({ [DRAINAGE_TILE_LAYER]: tile }, { version: 2, extent: 4096 });
+      const tile = index.getTile(z, x, y);
+      const minOrder = minStreamOrderAt(z);
+      const shown = (tile?.features ?? []).filter((feature) => Number(feature.tags?.streamOrder) >= minOrder);
+      if (shown.length === 0) return null;
+      return vtpbf.fromGeojsonVt({ [DRAINAGE_TILE_LAYER]: { features: shown } }, { version: 2, extent: 4096 });
     },
   };
 }

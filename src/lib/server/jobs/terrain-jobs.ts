@@ -7,7 +7,7 @@ import { db } from '../db';
 import { getConfig } from '../config';
 import { recordAudit } from '../repos/audit-log';
 import { replaceDrainageLines } from '../repos/drainage-lines';
-import { forgetDrainageTiles } from '../terrain/drainage-tiles';
+import { forgetDrainageTiles, prepareDrainageTiles } from '../terrain/drainage-tiles';
 import { findRunById, getElevationModelFile, listRunsWithStatus, updateRunProgress, updateTerrainRun } from '../repos/terrain';
 import { dataPath, removeQuietly, terrainRunFolder } from '../storage';
 import type { TerrainRunInput } from '../terrain/run-terrain';
@@ -117,6 +117,7 @@ async function startRun(runId: number): Promise<void> {
         await recordSuccess(run.propertyId, runId, run.elevationModelId, message.summary);
         // New drainage lines: find and design the property's crossings again.
         await analyseCrossings(run.propertyId).catch((error: unknown) => console.error(`[gullyline] crossings after terrain run ${runId}:`, error));
+        void prepareDrainageTiles(runId).catch((error: unknown) => console.error(`[gullyline] drainage tiles of terrain run ${runId}:`, error));
       });
       void worker.terminate();
     } else {

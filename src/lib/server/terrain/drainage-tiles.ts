@@ -1,15 +1,19 @@
+import { DRAINAGE_ORDER_STEPS, minStreamOrderAt } from '../../geo/drainage-tile-rules';
 import { createDrainageTiles, TILE_ZOOM_LIMIT, type DrainageTiles } from '../../geo/drainage-tiles';
 import { db } from '../db';
 import { BadRequestError, NotFoundError } from '../http';
 import { getTerrainRun } from '../repos/terrain';
 
 /**
- * Tile sets kept in memory, by terrain run id, newest use last. A run's lines never change once
- * it has succeeded (a newer run replaces them under a new id), so a set is built once; a few
- * runs' worth covers the properties people have open at once.
+ * Tile sets kept in memory, by terrain run id and smallest stream order, newest use last. A run's
+ * lines never change once it has succeeded (a newer run replaces them under a new id), so a set is
+ * built once. Each order step has its own set: a first look at a whole station cuts only its
+ * bigger channels, a third of the lines. A few runs' worth covers the properties open at once.
  */
 const MAX_CACHED_RUNS = 4;
-const cache = new Map<number, Promise<DrainageTiles>>();
+const MAX_CACHED = MAX_CACHED_RUNS * DRAINAGE_ORDER_STEPS.length;
+const cache = new Map<string, Promise<DrainageTiles>>();
+const keyOf = (runId: number, minOrder: number) => `${runId}/${minOrder}`;
 
 /** The tile numbers of a request, checked. @throws BadRequestError naming what is wrong */
 export function parseTileCoords(params: { z?: string; x?: string; y?: string }): { z: number; x: number; y: number } {
@@ -22,9 +26,10 @@ export function parseTileCoords(params: { z?: string; x?: string; y?: string }):
   return { z, x, y };
 }
 
-async function loadTiles(runId: number): Promise<DrainageTiles> {
+async function loadTiles(runId: number, minOrder: number): Promise<DrainageTiles> {
   const rows = await db()<{ id: number; terrain_run_id: number; stream_order: number; geometry: string }>('drainage_lines')
     .where({ terrain_run_id: runId })
+    .where('stream_order', '>=', minOrder)
     .orderBy('id')
     .select('id', 'stream_order', 'geometry');
   return createDrainageTiles(
@@ -32,17 +37,18 @@ async function loadTiles(runId: number): Promise<DrainageTiles> {
   );
 }
 
-function tilesOf(runId: number): Promise<DrainageTiles> {
-  let tiles = cache.get(runId);
+function tilesOf(runId: number, minOrder: number): Promise<DrainageTiles> {
+  const key = keyOf(runId, minOrder);
+  let tiles = cache.get(key);
   if (tiles) {
-    cache.delete(runId);
+    cache.delete(key);
   } else {
-    tiles = loadTiles(runId);
+    tiles = loadTiles(runId, minOrder);
     // A failed build is not kept: the next request tries again.
-    tiles.catch(() => cache.get(runId) === tiles && cache.delete(runId));
+    tiles.catch(() => cache.get(key) === tiles && cache.delete(key));
   }
-  cache.set(runId, tiles);
-  while (cache.size > MAX_CACHED_RUNS) cache.delete(cache.keys().next().value!);
+  cache.set(key, tiles);
+  while (cache.size > MAX_CACHED) cache.delete(cache.keys().next().value!);
   return tiles;
 }
 
@@ -53,10 +59,18 @@ function tilesOf(runId: number): Promise<DrainageTiles> {
 export async function drainageTile(propertyId: number, runId: number, coords: { z: number; x: number; y: number }): Promise<Uint8Array | null> {
   const run = await getTerrainRun(propertyId, runId);
   if (run.status !== 'succeeded') throw new NotFoundError('terrain run', 'This terrain run has not finished, so it has no drainage lines yet.');
-  return (await tilesOf(runId)).tile(coords.z, coords.x, coords.y);
+  return (await tilesOf(runId, minStreamOrderAt(coords.z))).tile(coords.z, coords.x, coords.y);
+}
+
+/**
+ * Cuts a newly finished run's tiles for the first view of the whole property (its bigger
+ * channels), so the first person to open the map after the run does not wait for them.
+ */
+export async function prepareDrainageTiles(runId: number): Promise<void> {
+  await tilesOf(runId, DRAINAGE_ORDER_STEPS[0]!.minOrder);
 }
 
 /** Drops the cached tiles of runs whose drainage lines were replaced or deleted. */
 export function forgetDrainageTiles(runIds: readonly number[]): void {
-  for (const runId of runIds) cache.delete(runId);
+  for (const runId of runIds) for (const step of DRAINAGE_ORDER_STEPS) cache.delete(keyOf(runId, step.minOrder));
 }
