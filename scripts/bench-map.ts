@@ -207,10 +207,29 @@ function compressed(name: string, body: Buffer): ShippedScript {
   };
 }
 
+/** Requests MapLibre's workers make (drainage tiles, contours): absent from the page's own resource timings. */
+const WORKER_FETCHED = /\/drainage\/\d+\/\d+\/\d+$|\/contours\.geojson$/;
+
 async function loadWorkspace(page: Page, url: string): Promise<LoadResult> {
+  const fromWorkers: Promise<{ url: string; startEpochMs: number; ttfbMs: number; durationMs: number; bytes: number }>[] = [];
+  page.on('requestfinished', (request) => {
+    if (!WORKER_FETCHED.test(new URL(request.url()).pathname)) return;
+    const timing = request.timing();
+    fromWorkers.push(
+      request
+        .response()
+        .then((response) => response?.body().then((body) => body.byteLength, () => 0) ?? 0)
+        .then((bytes) => ({ url: request.url(), startEpochMs: timing.startTime, ttfbMs: timing.responseStart, durationMs: timing.responseEnd, bytes })),
+    );
+  });
   await page.goto(url, { waitUntil: 'commit' });
   await page.waitForFunction(() => (window as unknown as { __benchMarks?: Marks }).__benchMarks?.readyIdleMs != null, undefined, { timeout: 120_000, polling: 500 });
-  return page.evaluate((sourceIds) => {
+  const timeOrigin = await page.evaluate(() => performance.timeOrigin);
+  const workerResources: ResourceTiming[] = (await Promise.all(fromWorkers)).map((r) => {
+    const startMs = r.startEpochMs - timeOrigin;
+    return { name: new URL(r.url).pathname, type: 'worker', startMs, ttfbMs: r.ttfbMs, endMs: startMs + r.durationMs, bytes: r.bytes };
+  });
+  const load = await page.evaluate((sourceIds) => {
     const marks = (window as unknown as { __benchMarks: Marks }).__benchMarks;
     const [navigation] = performance.getEntriesByType('navigation') as PerformanceNavigationTiming[];
     const resources = (performance.getEntriesByType('resource') as PerformanceResourceTiming[]).map((entry) => ({
@@ -253,6 +272,7 @@ async function loadWorkspace(page: Page, url: string): Promise<LoadResult> {
       webgl: String(gl ? gl.getParameter(glInfo ? glInfo.UNMASKED_RENDERER_WEBGL : gl.RENDERER) : 'no WebGL 2'),
     };
   }, PLAN_SOURCES);
+  return { ...load, resources: [...load.resources, ...workerResources] };
 }
 
 const s = (ms: number): string => `${(ms / 1000).toFixed(2)} s`;
@@ -270,11 +290,12 @@ function printLoad(label: string, load: LoadResult, cpu: { serverS: number; brow
 }
 
 function printWhereTimeWent(load: LoadResult): void {
-  console.log('\nwhere the time went (median load; ms since navigation start; TTFB = request start to first byte):');
+  console.log('\nwhere the time went (median load; ms since navigation start; TTFB = request start to first byte; * fetched by a MapLibre worker):');
   console.log(`  ${'request'.padEnd(58)} ${'start'.padStart(7)} ${'TTFB'.padStart(7)} ${'end'.padStart(7)} ${'body'.padStart(11)}`);
   for (const r of [...load.resources].sort((a, b) => a.startMs - b.startMs)) {
     if (r.startMs > load.readyIdleMs) continue;
-    const name = r.name.length > 58 ? `…${r.name.slice(-57)}` : r.name;
+    const shown = r.type === 'worker' ? `* ${r.name}` : r.name;
+    const name = shown.length > 58 ? `…${shown.slice(-57)}` : shown;
     console.log(`  ${name.padEnd(58)} ${r.startMs.toFixed(0).padStart(7)} ${r.ttfbMs.toFixed(0).padStart(7)} ${r.endMs.toFixed(0).padStart(7)} ${kb(r.bytes).padStart(11)}`);
   }
   const before = load.marks.longTasks.filter((task) => task.startMs < load.readyIdleMs);
