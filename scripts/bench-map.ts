@@ -32,8 +32,11 @@ const RUNS = 3;
 const KB = 1000;
 const TARGETS = { firstIdleMs: 3000, landingJsBytes: 20 * KB, workspaceOwnJsBytes: 300 * KB };
 const AUTH_SECRET = 'bench-secret-that-is-long-enough-for-authjs-0123456789';
-/** The sources that hold the plan; "drawn" means each has its features. */
-const PLAN_SOURCES = ['plan-fence-lines', 'drainage-lines', 'plan-crossings'];
+/**
+ * The sources that hold the plan; "drawn" means each has its features. An id ending in "-" stands
+ * for every source it begins (the drainage lines are one vector-tile source per terrain run).
+ */
+const PLAN_SOURCES = ['plan-fence-lines', 'drainage-', 'plan-crossings'];
 
 
 type Marks = { publishedMs: number | null; firstIdleMs: number | null; readyIdleMs: number | null; idleCount: number; longTasks: { startMs: number; durationMs: number }[] };
@@ -64,10 +67,18 @@ const INSTRUMENT_PAGE = `(() => {
   new PerformanceObserver((list) => {
     for (const entry of list.getEntries()) marks.longTasks.push({ startMs: entry.startTime, durationMs: entry.duration });
   }).observe({ type: 'longtask', buffered: true });
-  const hasFeatures = (map) => sourceIds.every((id) => {
-    const source = map.getSource(id);
-    const data = source && source.serialize ? source.serialize().data : undefined;
-    return !!data && Array.isArray(data.features) && data.features.length > 0;
+  // A GeoJSON source holds its features once given them; a vector source once its tiles in view are loaded.
+  const hasFeatures = (map) => sourceIds.every((pattern) => {
+    const ids = Object.keys(map.getStyle().sources).filter((id) => (pattern.endsWith('-') ? id.startsWith(pattern) : id === pattern));
+    return ids.length > 0 && ids.every((id) => {
+      const source = map.getSource(id);
+      if (source && source.type === 'vector') {
+        const layer = map.getStyle().layers.find((l) => l.source === id);
+        return map.querySourceFeatures(id, { sourceLayer: layer && layer['source-layer'] }).length > 0;
+      }
+      const data = source && source.serialize ? source.serialize().data : undefined;
+      return !!data && Array.isArray(data.features) && data.features.length > 0;
+    });
   });
   let published;
   Object.defineProperty(window, '__gullylineMap', {
@@ -196,10 +207,29 @@ function compressed(name: string, body: Buffer): ShippedScript {
   };
 }
 
+/** Requests MapLibre's workers make (drainage tiles, contours): absent from the page's own resource timings. */
+const WORKER_FETCHED = /\/drainage\/\d+\/\d+\/\d+$|\/contours\.geojson$/;
+
 async function loadWorkspace(page: Page, url: string): Promise<LoadResult> {
+  const fromWorkers: Promise<{ url: string; startEpochMs: number; ttfbMs: number; durationMs: number; bytes: number }>[] = [];
+  page.on('requestfinished', (request) => {
+    if (!WORKER_FETCHED.test(new URL(request.url()).pathname)) return;
+    const timing = request.timing();
+    fromWorkers.push(
+      request
+        .response()
+        .then((response) => response?.body().then((body) => body.byteLength, () => 0) ?? 0)
+        .then((bytes) => ({ url: request.url(), startEpochMs: timing.startTime, ttfbMs: timing.responseStart, durationMs: timing.responseEnd, bytes })),
+    );
+  });
   await page.goto(url, { waitUntil: 'commit' });
   await page.waitForFunction(() => (window as unknown as { __benchMarks?: Marks }).__benchMarks?.readyIdleMs != null, undefined, { timeout: 120_000, polling: 500 });
-  return page.evaluate((sourceIds) => {
+  const timeOrigin = await page.evaluate(() => performance.timeOrigin);
+  const workerResources: ResourceTiming[] = (await Promise.all(fromWorkers)).map((r) => {
+    const startMs = r.startEpochMs - timeOrigin;
+    return { name: new URL(r.url).pathname, type: 'worker', startMs, ttfbMs: r.ttfbMs, endMs: startMs + r.durationMs, bytes: r.bytes };
+  });
+  const load = await page.evaluate((sourceIds) => {
     const marks = (window as unknown as { __benchMarks: Marks }).__benchMarks;
     const [navigation] = performance.getEntriesByType('navigation') as PerformanceNavigationTiming[];
     const resources = (performance.getEntriesByType('resource') as PerformanceResourceTiming[]).map((entry) => ({
@@ -210,11 +240,26 @@ async function loadWorkspace(page: Page, url: string): Promise<LoadResult> {
       endMs: entry.responseEnd,
       bytes: entry.decodedBodySize,
     }));
-    const map = (window as unknown as { __gullylineMap: { querySourceFeatures(id: string): { id?: string | number }[] } }).__gullylineMap;
+    type BenchMap = {
+      querySourceFeatures(id: string, options?: { sourceLayer?: string }): { id?: string | number }[];
+      getStyle(): { sources: Record<string, { type: string }>; layers: { source?: string; 'source-layer'?: string }[] };
+    };
+    const map = (window as unknown as { __gullylineMap: BenchMap }).__gullylineMap;
+    const style = map.getStyle();
     const gl = document.createElement('canvas').getContext('webgl2');
     const glInfo = gl?.getExtension('WEBGL_debug_renderer_info');
     // Distinct features drawn in the loaded tiles (a line crossing tiles comes back once per tile).
-    const drawn = Object.fromEntries(sourceIds.map((id) => [id, new Set(map.querySourceFeatures(id).map((feature) => feature.id)).size]));
+    // (Inline arrows only: a named function here would carry tsx's helpers, which the page lacks.)
+    const drawn = Object.fromEntries(
+      sourceIds.map((pattern) => [
+        pattern,
+        new Set(
+          Object.keys(style.sources)
+            .filter((id) => (pattern.endsWith('-') ? id.startsWith(pattern) : id === pattern))
+            .flatMap((id) => map.querySourceFeatures(id, { sourceLayer: style.layers.find((layer) => layer.source === id)?.['source-layer'] }).map((f) => `${id}:${f.id}`)),
+        ).size,
+      ]),
+    );
     return {
       readyIdleMs: marks.readyIdleMs!,
       marks,
@@ -227,6 +272,7 @@ async function loadWorkspace(page: Page, url: string): Promise<LoadResult> {
       webgl: String(gl ? gl.getParameter(glInfo ? glInfo.UNMASKED_RENDERER_WEBGL : gl.RENDERER) : 'no WebGL 2'),
     };
   }, PLAN_SOURCES);
+  return { ...load, resources: [...load.resources, ...workerResources] };
 }
 
 const s = (ms: number): string => `${(ms / 1000).toFixed(2)} s`;
@@ -244,11 +290,12 @@ function printLoad(label: string, load: LoadResult, cpu: { serverS: number; brow
 }
 
 function printWhereTimeWent(load: LoadResult): void {
-  console.log('\nwhere the time went (median load; ms since navigation start; TTFB = request start to first byte):');
+  console.log('\nwhere the time went (median load; ms since navigation start; TTFB = request start to first byte; * fetched by a MapLibre worker):');
   console.log(`  ${'request'.padEnd(58)} ${'start'.padStart(7)} ${'TTFB'.padStart(7)} ${'end'.padStart(7)} ${'body'.padStart(11)}`);
   for (const r of [...load.resources].sort((a, b) => a.startMs - b.startMs)) {
     if (r.startMs > load.readyIdleMs) continue;
-    const name = r.name.length > 58 ? `…${r.name.slice(-57)}` : r.name;
+    const shown = r.type === 'worker' ? `* ${r.name}` : r.name;
+    const name = shown.length > 58 ? `…${shown.slice(-57)}` : shown;
     console.log(`  ${name.padEnd(58)} ${r.startMs.toFixed(0).padStart(7)} ${r.ttfbMs.toFixed(0).padStart(7)} ${r.endMs.toFixed(0).padStart(7)} ${kb(r.bytes).padStart(11)}`);
   }
   const before = load.marks.longTasks.filter((task) => task.startMs < load.readyIdleMs);

@@ -184,6 +184,16 @@ async function sparePhoto(context: Context): Promise<Partial<Context>> {
   return { ...round, photoId: body.photo.id };
 }
 
+/**
+ * The model's newest finished run: the runs started above replace the first run's drainage lines,
+ * so its tiles are empty (204) by now.
+ */
+async function currentRun(context: Context): Promise<Partial<Context>> {
+  await idleModel(context);
+  const row = await serverDb()('terrain_runs').where({ elevation_model_id: context.elevationModelId, status: 'succeeded' }).orderBy('id', 'desc').first('id');
+  return { runId: row.id };
+}
+
 const everyone = (status: number, anonymous = 401): Record<Caller, number> => ({
   anonymous, outsider: status, viewer: status, crew: status, manager: status, owner: status,
 });
@@ -300,6 +310,7 @@ const MATRIX: Record<string, Entry> = {
   'GET /api/properties/[id]/photos/[photoId]': { expect: atLeast('viewer', 200), prepare: sparePhoto },
   'GET /api/properties/[id]/crossings/[crossingId]/inspections': { expect: atLeast('viewer', 200), prepare: currentCrossing },
   'GET /api/properties/[id]/crossings/redesign-flags': { expect: atLeast('viewer', 200) },
+  'GET /api/properties/[id]/terrain-runs/[runId]/drainage/[z]/[x]/[y]': { expect: atLeast('viewer', 200), prepare: currentRun },
 };
 
 /** Every "METHOD /api/route" exported by a file under src/pages/api. */
@@ -341,8 +352,21 @@ function fill(route: string, context: Context): string {
     .replace('[token]', context.token ?? 'none')
     .replace('[roundId]', String(context.roundId ?? 0))
     .replace('[checkId]', String(context.checkId ?? 0))
-    .replace('[photoId]', String(context.photoId ?? 0));
+    .replace('[photoId]', String(context.photoId ?? 0))
+    .replace('[z]/[x]/[y]', `${CREEK_TILE.z}/${CREEK_TILE.x}/${CREEK_TILE.y}`);
 }
+
+/**
+ * The zoom-14 tile over a point of the demo's main creek (data-samples manifest), which holds
+ * drainage lines; slippy-map tile numbers from OpenStreetMap wiki, "Slippy map tilenames".
+ */
+const CREEK_TILE = (() => {
+  const creeks = (JSON.parse(readFileSync('data-samples/saltbush-rise.json', 'utf8')) as { creeks: { name: string; centrelineLonLat: [number, number][] }[] }).creeks;
+  const line = creeks.find((creek) => /main/i.test(creek.name))!.centrelineLonLat;
+  const [lon, lat] = line[Math.floor(line.length / 2)]!;
+  const n = 2 ** 14;
+  return { z: 14, x: Math.floor(((lon + 180) / 360) * n), y: Math.floor(((1 - Math.asinh(Math.tan((lat * Math.PI) / 180)) / Math.PI) / 2) * n) };
+})();
 
 const clients = {} as Record<Caller, TestClient>;
 const context: Context = { propertyId: 0, targetUserId: 0, elevationModelId: 0, runId: 0 };

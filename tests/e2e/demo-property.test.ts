@@ -60,7 +60,16 @@ describe('the demo property', () => {
     // The seed's own model finishes too (the server picks it up within seconds): two are done.
     await expect.poll(() => page.getByTestId('terrain-run-done').count(), { timeout: 60_000 }).toBe(2);
     await waitForMap(page);
-    await page.waitForFunction(() => (window.__gullylineMap!.queryRenderedFeatures({ layers: ['drainage-lines'] }).length ?? 0) > 10, undefined, { timeout: 15_000 });
+    // One drainage layer per terrain run (drainage-lines-<runId>), drawn from vector tiles.
+    await page.waitForFunction(
+      () => {
+        const map = window.__gullylineMap!;
+        const layers = map.getStyle().layers.map((layer) => layer.id).filter((id) => id.startsWith('drainage-lines-'));
+        return layers.length > 0 && map.queryRenderedFeatures({ layers }).length > 10;
+      },
+      undefined,
+      { timeout: 15_000 },
+    );
     const layers = await page.evaluate(() => window.__gullylineMap!.getStyle().layers.map((layer) => layer.id));
     expect(layers.some((id) => id.startsWith('hillshade-'))).toBe(true);
     expect(layers.some((id) => id.startsWith('contours-'))).toBe(true);

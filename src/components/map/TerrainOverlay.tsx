@@ -1,12 +1,14 @@
-import type { FeatureCollection } from 'geojson';
-import { Layer, Source } from 'react-map-gl/maplibre';
+import { useEffect, useState } from 'react';
+import { Layer, Source, useMap } from 'react-map-gl/maplibre';
+import { DRAINAGE_TILE_MAX_ZOOM } from '../../lib/geo/drainage-tile-rules';
 import {
-  DRAINAGE_SOURCE_ID,
+  CONTOURS_MIN_ZOOM,
   contourLabelLayer,
   contourLineLayer,
   contoursSourceId,
   drainageCasingLayer,
   drainageLineLayer,
+  drainageSourceId,
   hillshadeLayer,
   hillshadeSourceId,
 } from './terrain-layers';
@@ -17,7 +19,6 @@ export type TerrainVisibility = { hillshade: boolean; contours: boolean; drainag
 type Props = {
   propertyId: number;
   runs: TerrainRunLayer[];
-  drainage: FeatureCollection | null;
   visible: TerrainVisibility;
   /** Whether the property's extent is drawn: terrain then goes under its outline and name. */
   underExtent: boolean;
@@ -27,11 +28,14 @@ type Props = {
 const EXTENT_FILL = 'property-extent-fill';
 const EXTENT_LABEL = 'property-extent-label';
 
-/** Hillshade and contours of each finished terrain run, and the property's drainage lines. */
-export default function TerrainOverlay({ propertyId, runs, drainage, visible, underExtent }: Props) {
+/** Hillshade, contours and drainage lines of each finished terrain run. */
+export default function TerrainOverlay({ propertyId, runs, visible, underExtent }: Props) {
   const belowExtent = underExtent ? EXTENT_FILL : undefined;
   const belowName = underExtent ? EXTENT_LABEL : undefined;
   const base = `/api/properties/${propertyId}/terrain-runs`;
+  // Tiles are fetched by MapLibre's workers, which need a full address.
+  const origin = window.location.origin;
+  const contoursWanted = useZoomReached(CONTOURS_MIN_ZOOM);
   return (
     <>
       {visible.hillshade &&
@@ -47,18 +51,45 @@ export default function TerrainOverlay({ propertyId, runs, drainage, visible, un
           </Source>
         ))}
       {visible.contours &&
+        contoursWanted &&
         runs.map((run) => (
           <Source key={`c${run.id}`} id={contoursSourceId(run.id)} type="geojson" data={`${base}/${run.id}/contours.geojson`}>
             <Layer {...contourLineLayer(run.id, run.contourIntervalM)} beforeId={belowExtent} />
             <Layer {...contourLabelLayer(run.id)} beforeId={belowExtent} />
           </Source>
         ))}
-      {visible.drainage && drainage && (
-        <Source id={DRAINAGE_SOURCE_ID} type="geojson" data={drainage}>
-          <Layer {...drainageCasingLayer} beforeId={belowName} />
-          <Layer {...drainageLineLayer} beforeId={belowName} />
-        </Source>
-      )}
+      {visible.drainage &&
+        runs.map((run) => (
+          // Vector tiles: only the tiles in view are fetched, already clipped and simplified for their zoom.
+          <Source
+            key={`d${run.id}`}
+            id={drainageSourceId(run.id)}
+            type="vector"
+            tiles={[`${origin}${base}/${run.id}/drainage/{z}/{x}/{y}`]}
+            maxzoom={DRAINAGE_TILE_MAX_ZOOM}
+          >
+            <Layer {...drainageCasingLayer(run.id)} beforeId={belowName} />
+            <Layer {...drainageLineLayer(run.id)} beforeId={belowName} />
+          </Source>
+        ))}
     </>
   );
+}
+
+/**
+ * Whether the map has been at `zoom` or closer. The contours (megabytes of GeoJSON on a big
+ * station) are fetched only then: a first view of the whole property does not draw them.
+ */
+function useZoomReached(zoom: number): boolean {
+  const { current: mapRef } = useMap();
+  const [reached, setReached] = useState(() => (mapRef?.getZoom() ?? 0) >= zoom);
+  useEffect(() => {
+    const map = mapRef?.getMap();
+    if (!map || reached) return;
+    const check = () => map.getZoom() >= zoom && setReached(true);
+    check();
+    map.on('zoomend', check);
+    return () => void map.off('zoomend', check);
+  }, [mapRef, reached, zoom]);
+  return reached;
 }

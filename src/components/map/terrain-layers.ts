@@ -1,5 +1,6 @@
 import type { ExpressionSpecification } from '@maplibre/maplibre-gl-style-spec';
 import type { LayerSpecification } from 'maplibre-gl';
+import { DRAINAGE_ORDER_STEPS, DRAINAGE_TILE_LAYER } from '../../lib/geo/drainage-tile-rules';
 import { MAP_COLOURS, MAP_FONTS } from './theme';
 
 type LineLayer = Extract<LayerSpecification, { type: 'line' }>;
@@ -13,7 +14,6 @@ export const TERRAIN_COLOURS = {
   contour: '#7a5a3a',
 } as const;
 
-export const DRAINAGE_SOURCE_ID = 'drainage-lines';
 export const contoursSourceId = (runId: number) => `contours-${runId}`;
 export const hillshadeSourceId = (runId: number) => `hillshade-${runId}`;
 
@@ -27,6 +27,9 @@ export function hillshadeLayer(runId: number): RasterLayer {
   };
 }
 
+/** Contours show from this zoom: further out they are a brown haze over the whole property. */
+export const CONTOURS_MIN_ZOOM = 11;
+
 /** Contour lines: thin bark-brown lines, every fifth level a little heavier. */
 export function contourLineLayer(runId: number, intervalM: number): LineLayer {
   const isIndex: LineLayer['filter'] = ['==', ['%', ['round', ['/', ['get', 'elevationM'], intervalM]], 5], 0];
@@ -34,7 +37,7 @@ export function contourLineLayer(runId: number, intervalM: number): LineLayer {
     id: `contours-${runId}`,
     type: 'line',
     source: contoursSourceId(runId),
-    minzoom: 11,
+    minzoom: CONTOURS_MIN_ZOOM,
     paint: {
       'line-color': TERRAIN_COLOURS.contour,
       'line-opacity': 0.55,
@@ -73,26 +76,42 @@ const widthByOrder = (base: number): ExpressionSpecification => [
 ];
 
 /**
- * Small gullies wait for closer zooms: order 3 and up always, order 2 from zoom 12, all from 13.
- * A whole station's headwaters at once are a blur, and drawing them is most of a first load.
+ * Small gullies wait for closer zooms (DRAINAGE_ORDER_STEPS: order 3 and up always, order 2 from
+ * zoom 12, all from 13). The tiles leave out what their zoom hides; the filter keeps a tile drawn
+ * over a closer zoom (while its children load) to the same rule.
  */
-const shownAtThisZoom: ExpressionSpecification = ['>=', ['get', 'streamOrder'], ['step', ['zoom'], 3, 12, 2, 13, 1]];
+const shownAtThisZoom: ExpressionSpecification = [
+  '>=',
+  ['get', 'streamOrder'],
+  ['step', ['zoom'], DRAINAGE_ORDER_STEPS[0]!.minOrder, ...DRAINAGE_ORDER_STEPS.slice(1).flatMap((step) => [step.fromZoom, step.minOrder])],
+] as ExpressionSpecification;
 
-export const drainageCasingLayer: LineLayer = {
-  id: 'drainage-casing',
-  type: 'line',
-  source: DRAINAGE_SOURCE_ID,
-  minzoom: 12,
-  filter: shownAtThisZoom,
-  layout: { 'line-join': 'round', 'line-cap': 'round' },
-  paint: { 'line-color': TERRAIN_COLOURS.drainageCasing, 'line-width': widthByOrder(3), 'line-opacity': 0.8 },
-};
+/** A terrain run's drainage lines: vector tiles cut by the server (layer DRAINAGE_TILE_LAYER). */
+export const drainageSourceId = (runId: number) => `drainage-${runId}`;
 
-export const drainageLineLayer: LineLayer = {
-  id: 'drainage-lines',
-  type: 'line',
-  source: DRAINAGE_SOURCE_ID,
-  filter: shownAtThisZoom,
-  layout: { 'line-join': 'round', 'line-cap': 'round' },
-  paint: { 'line-color': TERRAIN_COLOURS.drainage, 'line-width': widthByOrder(1.2) },
-};
+/** The light casing under the drainage lines, from zoom 12, so they stand out over the hillshade. */
+export function drainageCasingLayer(runId: number): LineLayer {
+  return {
+    id: `drainage-casing-${runId}`,
+    type: 'line',
+    source: drainageSourceId(runId),
+    'source-layer': DRAINAGE_TILE_LAYER,
+    minzoom: 12,
+    filter: shownAtThisZoom,
+    layout: { 'line-join': 'round', 'line-cap': 'round' },
+    paint: { 'line-color': TERRAIN_COLOURS.drainageCasing, 'line-width': widthByOrder(3), 'line-opacity': 0.8 },
+  };
+}
+
+/** Drainage lines in water blue, heavier with stream order. */
+export function drainageLineLayer(runId: number): LineLayer {
+  return {
+    id: `drainage-lines-${runId}`,
+    type: 'line',
+    source: drainageSourceId(runId),
+    'source-layer': DRAINAGE_TILE_LAYER,
+    filter: shownAtThisZoom,
+    layout: { 'line-join': 'round', 'line-cap': 'round' },
+    paint: { 'line-color': TERRAIN_COLOURS.drainage, 'line-width': widthByOrder(1.2) },
+  };
+}

@@ -59,8 +59,6 @@ function Workspace({ propertyId, propertyName, extentWgs84, canEdit, children }:
       query.state.data?.some((m) => m.latestRun?.status === 'queued' || m.latestRun?.status === 'running') ? 600 : false,
   });
   const currentRunIds = (models.data ?? []).map((m) => m.currentRun?.id ?? 0).join(',');
-  // Keyed by the current runs, so wait for them: asking before would fetch everything twice.
-  const drainage = useQuery({ queryKey: ['drainage-lines', propertyId, currentRunIds], queryFn: () => api.drainageLines(propertyId), enabled: models.isSuccess });
   const [visible, setVisible] = useState<TerrainVisibility>({ hillshade: true, contours: true, drainage: true });
 
   // The newest finished run: the server designs the crossings again just after it.
@@ -209,7 +207,7 @@ function Workspace({ propertyId, propertyName, extentWgs84, canEdit, children }:
   // The map takes the first plan in one go: each source arriving on its own costs a full redraw,
   // seconds on a big station where WebGL is drawn in software. After that, changes go straight in.
   const planArrived = useRef(false);
-  if ([models, fenceLines, crossings, tracks, paddocks].every((query) => !query.isPending) && (models.isError || !drainage.isPending)) planArrived.current = true;
+  if ([models, fenceLines, crossings, tracks, paddocks].every((query) => !query.isPending)) planArrived.current = true;
   const onMap = <T,>(data: T | undefined): T | null => (planArrived.current ? (data ?? null) : null);
 
   return (
@@ -224,7 +222,8 @@ function Workspace({ propertyId, propertyName, extentWgs84, canEdit, children }:
           onFeatureClick={editing ? undefined : onFeatureClick}
           groundHeightAt={runs.length > 0 ? groundHeightAt : undefined}
         >
-          <TerrainOverlay propertyId={propertyId} runs={planArrived.current ? runs : []} drainage={onMap(drainage.data)} visible={visible} underExtent={extent !== null} />
+          {/* The terrain goes on as soon as the runs are known: its tiles and image load while the plan is still on its way. */}
+          <TerrainOverlay propertyId={propertyId} runs={runs} visible={visible} underExtent={extent !== null} />
           <TracksOverlay tracks={onMap(tracks.data)} paddocks={onMap(paddocks.data)} visible={planVisible} />
           <PlanOverlay
             fenceLines={onMap(fenceLines.data)}

@@ -1,4 +1,3 @@
-import type { FeatureCollection } from 'geojson';
 import type {
   CrossingCollection,
   CrossingDetailView,
@@ -76,7 +75,6 @@ export const api = {
     request<{ run: TerrainRun }>('POST', `/api/properties/${propertyId}/terrain-runs/${runId}/cancel`),
   startTerrainRun: (propertyId: number, elevationModelId: number, thresholdHa?: number) =>
     request<{ run: TerrainRun }>('POST', `/api/properties/${propertyId}/terrain-runs`, { elevationModelId, thresholdHa }),
-  drainageLines: (propertyId: number) => request<FeatureCollection>('GET', `/api/properties/${propertyId}/drainage-lines`),
   listFenceLines: (propertyId: number) => request<FenceLinesResponse>('GET', `/api/properties/${propertyId}/fence-lines`),
   createFenceLine: (propertyId: number, input: Partial<FenceLineInput> & Pick<FenceLineInput, 'name' | 'coordinates'>) =>
     request<{ fenceLine: FenceLine }>('POST', `/api/properties/${propertyId}/fence-lines`, input),

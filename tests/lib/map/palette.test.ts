@@ -146,13 +146,13 @@ const GROUPS: Group[] = [
       })),
       { name: 'no angle', colour: PLAN_COLOURS.angleNone, against: onGround },
       { name: 'redesign ring', colour: paintOf(crossingRedesignLayer)['circle-stroke-color'] as string, against: onGround },
-      { name: 'drainage', colour: TERRAIN_COLOURS.drainage, against: { colours: casingOf(drainageCasingLayer), why: 'drainage lines run on a wider pale casing', holds: casingWider(drainageCasingLayer, drainageLineLayer) } },
+      { name: 'drainage', colour: TERRAIN_COLOURS.drainage, against: { colours: casingOf(drainageCasingLayer(1)), why: 'drainage lines run on a wider pale casing', holds: casingWider(drainageCasingLayer(1), drainageLineLayer(1)) } },
     ],
     apartByShape: [
       {
         pair: ['good', 'drainage'],
         how: 'a crossing is a disc with a pale rim sitting on the line of its creek',
-        holds: crossingDotLayer.type === 'circle' && drainageLineLayer.type === 'line' && outputsOf(paintOf(crossingDotLayer)['circle-stroke-color']).includes(MAP_COLOURS.casing),
+        holds: crossingDotLayer.type === 'circle' && drainageLineLayer(1).type === 'line' && outputsOf(paintOf(crossingDotLayer)['circle-stroke-color']).includes(MAP_COLOURS.casing),
       },
     ],
   },
@@ -165,7 +165,7 @@ const GROUPS: Group[] = [
         against: { colours: casingOf(fenceCasingLayer), why: 'every fence line runs on a wider pale casing', holds: casingWider(fenceCasingLayer, statusLayer(status)) },
       })),
       { name: 'realignment', colour: paintOf(realignLineLayer)['line-color'] as string, against: { colours: casingOf(realignCasingLayer), why: 'the preview runs on its own wider casing', holds: casingWider(realignCasingLayer, realignLineLayer) } },
-      { name: 'drainage', colour: TERRAIN_COLOURS.drainage, against: { colours: casingOf(drainageCasingLayer), why: 'drainage lines run on a wider pale casing', holds: casingWider(drainageCasingLayer, drainageLineLayer) } },
+      { name: 'drainage', colour: TERRAIN_COLOURS.drainage, against: { colours: casingOf(drainageCasingLayer(1)), why: 'drainage lines run on a wider pale casing', holds: casingWider(drainageCasingLayer(1), drainageLineLayer(1)) } },
       { name: 'GPS track', colour: TRACK_PADDOCK_COLOURS.track, against: { colours: casingOf(trackCasingLayer), why: 'tracks run on a wider pale casing', holds: casingWider(trackCasingLayer, trackLineLayer) } },
       { name: 'paddock edge', colour: TRACK_PADDOCK_COLOURS.paddockEdge, against: onGround },
       { name: 'shape being drawn', colour: DRAFT_COLOURS.line, against: onGround },
@@ -276,8 +276,8 @@ describe.each(GROUPS)('$name', ({ marks, apartByShape }) => {
 
 describe('drainage stream orders', () => {
   it('are told apart by width in one colour, so there is no colour to check between them', () => {
-    expect(paintOf(drainageLineLayer)['line-color']).toBe(TERRAIN_COLOURS.drainage);
-    expect(new Set(numbersOf(paintOf(drainageLineLayer)['line-width'])).size).toBeGreaterThan(1);
+    expect(paintOf(drainageLineLayer(1))['line-color']).toBe(TERRAIN_COLOURS.drainage);
+    expect(new Set(numbersOf(paintOf(drainageLineLayer(1))['line-width'])).size).toBeGreaterThan(1);
   });
 });
 

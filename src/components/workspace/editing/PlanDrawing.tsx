@@ -1,4 +1,4 @@
-import { useContext, useEffect, useImperativeHandle, useRef, type Ref } from 'react';
+import { useContext, useEffect, useImperativeHandle, useRef, useState, type Ref } from 'react';
 import { useMap } from 'react-map-gl/maplibre';
 import type { TerraDraw } from 'terra-draw';
 import { snapToPlan, type SnapTargets } from '../../../lib/geo/snap-to-plan';
@@ -72,10 +72,15 @@ export default function PlanDrawing({ tool, snapTargets, onFinished, onShapeChan
   const latest = useRef({ snapTargets, onFinished, onShapeChange, onHistoryChange, onLoadFailed });
   latest.current = { snapTargets, onFinished, onShapeChange, onHistoryChange, onLoadFailed };
 
+  // Terra Draw starts with the first drawing task, not with the map: its sources and layers would
+  // cost a big station's first load more redraws (seconds where WebGL is drawn in software).
+  const [needed, setNeeded] = useState(tool.kind !== 'idle');
+  if (tool.kind !== 'idle' && !needed) setNeeded(true);
+
   // Terra Draw adds its sources and layers at start: only once the style is in place.
   useEffect(() => {
     const map = mapRef?.getMap();
-    if (!map || !mapLoaded) return;
+    if (!map || !mapLoaded || !needed) return;
     const draw = createPlanDraw(map, (event, context) =>
       snapToPlan({ x: event.containerX, y: event.containerY }, latest.current.snapTargets, (lon, lat) => context.project(lon, lat), SNAP_TOLERANCE_PX),
     );
@@ -101,7 +106,7 @@ export default function PlanDrawing({ tool, snapTargets, onFinished, onShapeChan
       drawRef.current = null;
       draw.stop();
     };
-  }, [mapRef, mapLoaded]);
+  }, [mapRef, mapLoaded, needed]);
 
   // Each tool change sets the mode and what is on the drawing layer.
   const toolKey = JSON.stringify(tool);
@@ -130,7 +135,7 @@ export default function PlanDrawing({ tool, snapTargets, onFinished, onShapeChan
     }
     latest.current.onShapeChange(shapeOf(draw));
     latest.current.onHistoryChange({ canUndo: false, canRedo: false });
-  }, [toolKey, mapLoaded]);
+  }, [toolKey, mapLoaded, needed]);
 
   // Removing points by tapping them: the nearest point within reach of the tap goes.
   useEffect(() => {

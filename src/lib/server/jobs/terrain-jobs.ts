@@ -4,6 +4,7 @@ import { db } from '../db';
 import { getConfig } from '../config';
 import { recordAudit } from '../repos/audit-log';
 import { replaceDrainageLines } from '../repos/drainage-lines';
+import { forgetDrainageTiles, prepareDrainageTiles } from '../terrain/drainage-tiles';
 import { findRunById, getElevationModelFile, listRunsWithStatus, updateRunProgress, updateTerrainRun } from '../repos/terrain';
 import { dataPath, removeQuietly, terrainRunFolder } from '../storage';
 import type { TerrainRunInput } from '../terrain/run-terrain';
@@ -116,6 +117,7 @@ async function startRun(runId: number): Promise<void> {
         await recordSuccess(run.propertyId, runId, run.elevationModelId, message.summary);
         // New drainage lines: find and design the property's crossings again.
         await analyseCrossings(run.propertyId).catch((error: unknown) => console.error(`[gullyline] crossings after terrain run ${runId}:`, error));
+        void prepareDrainageTiles(runId).catch((error: unknown) => console.error(`[gullyline] drainage tiles of terrain run ${runId}:`, error));
       });
       void worker.terminate();
     } else {
@@ -136,10 +138,10 @@ async function startRun(runId: number): Promise<void> {
 }
 
 async function recordSuccess(propertyId: number, runId: number, elevationModelId: number, summary: Extract<WorkerMessage, { type: 'done' }>['summary']): Promise<void> {
-  await db().transaction(async (trx) => {
+  const replacedRuns = await db().transaction(async (trx) => {
     const current = await findRunById(runId, trx);
-    if (current?.status !== 'running') return; // cancelled meanwhile
-    await replaceDrainageLines(trx, { propertyId, runId, elevationModelId, segments: summary.drainage, wgs84: summary.drainageWgs84 });
+    if (current?.status !== 'running') return []; // cancelled meanwhile
+    const earlier = await replaceDrainageLines(trx, { propertyId, runId, elevationModelId, segments: summary.drainage, wgs84: summary.drainageWgs84 });
     await updateTerrainRun(
       runId,
       {
@@ -164,7 +166,10 @@ async function recordSuccess(propertyId: number, runId: number, elevationModelId
     // A property without an extent takes its first model's.
     await trx('properties').where({ id: propertyId }).whereNull('extent_west').update({ extent_west: w, extent_south: s, extent_east: e, extent_north: n });
     await recordAudit({ propertyId, action: 'terrain_run.succeed', entityType: 'terrain_run', entityId: runId, detail: { drainageLines: summary.drainage.length } }, trx);
+    return earlier;
   });
+  // Once committed: the earlier runs' lines are gone, and so are their tiles.
+  forgetDrainageTiles(replacedRuns);
 }
 
 async function recordFailure(runId: number, message: string): Promise<void> {

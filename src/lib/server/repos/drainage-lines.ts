@@ -17,12 +17,13 @@ type DrainageRow = {
 /**
  * Stores a terrain run's drainage lines and drops those of earlier runs over the same elevation
  * model, inside the caller's transaction (a run's lines appear all at once or not at all).
+ * Returns the ids of those earlier runs.
  */
 export async function replaceDrainageLines(
   trx: Knex,
   input: { propertyId: number; runId: number; elevationModelId: number; segments: DrainageSegment[]; wgs84: [number, number][][] },
-): Promise<void> {
-  const earlierRuns = trx('terrain_runs').select('id').where({ elevation_model_id: input.elevationModelId }).whereNot({ id: input.runId });
+): Promise<number[]> {
+  const earlierRuns = (await trx('terrain_runs').select('id').where({ elevation_model_id: input.elevationModelId }).whereNot({ id: input.runId })).map((row: { id: number }) => row.id);
   await trx('drainage_lines').whereIn('terrain_run_id', earlierRuns).delete();
   const rows = input.segments.map((segment, index) => {
     const line = input.wgs84[index]!;
@@ -48,6 +49,7 @@ export async function replaceDrainageLines(
   });
   // SQLite allows a limited number of bound values per statement: insert in chunks.
   await trx.batchInsert('drainage_lines', rows, 200);
+  return earlierRuns;
 }
 
 /**

@@ -8,6 +8,7 @@ import { cancelTerrainRun, enqueueTerrainRun } from '../jobs/terrain-jobs';
 import { recordAudit } from '../repos/audit-log';
 import { getElevationModelFile, getTerrainRun, insertTerrainRun } from '../repos/terrain';
 import { dataPath, removeQuietly, terrainRunFolder } from '../storage';
+import { forgetDrainageTiles } from './drainage-tiles';
 import { DEFAULT_THRESHOLD_HA } from './run-terrain';
 
 /** Queues a new terrain run over one of the property's elevation models (a re-run, or a new threshold). */
@@ -49,6 +50,7 @@ export async function deleteElevationModel(propertyId: number, elevationModelId:
     await trx('elevation_models').where({ id: elevationModelId, property_id: propertyId }).delete();
     await recordAudit({ propertyId, userId, action: 'elevation_model.delete', entityType: 'elevation_model', entityId: elevationModelId }, trx);
   });
+  forgetDrainageTiles(runs.map((run) => run.id));
   await removeQuietly(path.dirname(dataPath(storedFile)));
   for (const run of runs) await removeQuietly(dataPath(terrainRunFolder(run.id)));
   // Its drainage lines are gone: the crossings with them.
