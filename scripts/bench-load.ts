@@ -5,7 +5,7 @@
  *
  * Signs in the demo accounts (several sessions each), then keeps `connections` callers busy for
  * `duration` seconds (or until `max-requests`), each repeating a realistic mix: workspace reads
- * (elevation models, fence lines, crossings, drainage lines), a crossing's design, a fence edit
+ * (elevation models, fence lines, crossings, drainage tiles), a crossing's design, a fence edit
  * (PATCH with the version read, moving a vertex, which re-finds its crossings), a plan export and
  * now and then a fresh sign-in. Prints requests per second, latency p50/p99 for reads and writes,
  * errors and 5xx, and whether the targets are met: no errors, no 5xx, read p99 under 250 ms,
@@ -173,7 +173,15 @@ async function timed(stats: Stats, kind: Kind, name: string, send: () => Promise
   }
 }
 
-type Workspace = { propertyId: number; crossingIds: number[] };
+/** What the workspace reads: the property, its crossings, and drainage tiles of the newest terrain run. */
+type Workspace = { propertyId: number; crossingIds: number[]; runId: number | null; drainageTiles: string[] };
+
+/** The z/x/y of the tile holding a point (OSM wiki, "Slippy map tilenames"). */
+function tileOf([lon, lat]: [number, number], z: number): string {
+  const n = 2 ** z;
+  const rad = (lat * Math.PI) / 180;
+  return `${z}/${Math.floor(((lon + 180) / 360) * n)}/${Math.floor(((1 - Math.log(Math.tan(rad) + 1 / Math.cos(rad)) / Math.PI) / 2) * n)}`;
+}
 type Caller = { session: Session; canEdit: boolean; fence?: { id: number; version: number; coordinates: [number, number][] } };
 
 type Task = 'sign-in' | 'edit' | 'export' | 'design' | 'read';
@@ -191,11 +199,17 @@ function taskFor(roll: number, mix: 'full' | 'reads', canEdit: boolean, hasCross
   return 'read';
 }
 
+async function newestRun(session: Session, base: string): Promise<number | null> {
+  const { elevationModels } = (await (await session.request('GET', `${base}/elevation-models`)).json()) as { elevationModels: { latestRun: { id: number; status: string } | null }[] };
+  const runs = elevationModels.map((model) => model.latestRun).filter((run) => run?.status === 'succeeded');
+  return runs.length ? Math.max(...runs.map((run) => run!.id)) : null;
+}
+
 /** One connection's loop: a weighted mix, until the time is up or the request cap is reached. */
 async function runCaller(caller: Caller, workspace: Workspace, stats: Stats, endsAt: number, seed: number, mix: 'full' | 'reads'): Promise<void> {
   const random = createMulberry32(seed);
   const base = `/api/properties/${workspace.propertyId}`;
-  const reads = ['elevation-models', 'fence-lines', 'crossings', 'drainage-lines'];
+  const reads = ['elevation-models', 'fence-lines', 'crossings', 'drainage tile'];
   while (performance.now() < endsAt && stats.requests < maxRequests) {
     const { session } = caller;
     const task = taskFor(random(), mix, caller.canEdit && caller.fence !== undefined, workspace.crossingIds.length > 0);
@@ -222,7 +236,15 @@ async function runCaller(caller: Caller, workspace: Workspace, stats: Stats, end
       }
     } else {
       const what = reads[Math.floor(random() * reads.length)]!;
-      await timed(stats, 'read', what, () => session.request('GET', `${base}/${what}`));
+      const tile = workspace.drainageTiles[Math.floor(random() * workspace.drainageTiles.length)];
+      if (what === 'drainage tile' && tile && workspace.runId !== null) {
+        const answer = await timed(stats, 'read', what, () => session.request('GET', `${base}/terrain-runs/${workspace.runId}/drainage/${tile}`), true);
+        // A new terrain run replaces the drainage lines: the map asks the newest run's tiles.
+        if (!answer) workspace.runId = await newestRun(session, base);
+      } else {
+        const route = what === 'drainage tile' ? 'crossings' : what;
+        await timed(stats, 'read', route, () => session.request('GET', `${base}/${route}`));
+      }
     }
   }
 }
@@ -301,9 +323,11 @@ async function main(): Promise<void> {
     const manager = sessions.find((entry) => entry.role === 'manager')!.session;
     const { properties } = (await (await manager.request('GET', '/api/properties')).json()) as { properties: { id: number }[] };
     const propertyId = properties[0]!.id;
-    const crossings = (await (await manager.request('GET', `/api/properties/${propertyId}/crossings`)).json()) as { features: { id: number }[] };
+    const crossings = (await (await manager.request('GET', `/api/properties/${propertyId}/crossings`)).json()) as { features: { id: number; geometry: { coordinates: [number, number] } }[] };
     const fenceLines = ((await (await manager.request('GET', `/api/properties/${propertyId}/fence-lines`)).json()) as { fenceLines: { coordinates: [number, number][] }[] }).fenceLines;
-    const workspace: Workspace = { propertyId, crossingIds: crossings.features.map((feature) => feature.id) };
+    // The tiles a map open around the crossings asks for, at the zooms the workspace opens and reads at.
+    const drainageTiles = [...new Set(crossings.features.flatMap((feature) => [12, 13, 14].map((z) => tileOf(feature.geometry.coordinates, z))))];
+    const workspace: Workspace = { propertyId, crossingIds: crossings.features.map((feature) => feature.id), runId: await newestRun(manager, `/api/properties/${propertyId}`), drainageTiles };
 
     // Each editing connection edits its own fence line (a short copy of a demo line's start), so edits never conflict.
     const callers: Caller[] = [];

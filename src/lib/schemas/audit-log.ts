@@ -9,7 +9,7 @@ export const CHANGE_GROUPS = {
   designs: { label: 'Crossing designs', subjects: ['crossing'] },
   terrain: { label: 'Elevation models and terrain runs', subjects: ['elevation_model', 'terrain_run'] },
   work: { label: 'Work orders', subjects: ['work_order', 'work_order_item'] },
-  inspections: { label: 'Rain events and inspections', subjects: ['rain_event', 'inspection_round', 'inspection_check', 'photo'] },
+  inspections: { label: 'Rain events and inspections', subjects: ['rain_event', 'inspection_round', 'inspection_check', 'inspection_photo'] },
   people: { label: 'People and invitations', subjects: ['membership', 'invitation'] },
   property: { label: 'Property and settings', subjects: ['property', 'settings'] },
 } as const satisfies Record<string, { label: string; subjects: readonly string[] }>;
@@ -73,6 +73,12 @@ const DESCRIBE: Record<string, (detail: Detail, entityId: string | null, subject
   'work_order.send': (d, id) => `${d.resent ? 'Sent again' : 'Sent'} work order ${id ?? ''}${typeof d.to === 'string' ? ` to ${d.to}` : ''}`,
   'work_order.item_state': (d) =>
     `Marked ${text(d.label) ?? 'an item'} ${text(d.to) ?? ''}${text(d.workOrderId) ? ` (work order ${text(d.workOrderId)})` : ''}${text(d.note) ? `: “${text(d.note)}”` : ''}`,
+  'rain_event.create': (d) =>
+    `Recorded ${text(d.rainfallMm) ?? '?'} mm of rain on ${text(d.fellOn) ?? 'a day'}${d.scope === 'paddocks' ? ' over chosen paddocks' : ''}${Array.isArray(d.crossingIds) ? `: ${count(d.crossingIds.length, 'crossing', 'crossings')} to inspect` : ''}`,
+  'inspection_check.update': (d) => `Inspected crossing ${text(d.crossingId) ?? ''}: ${(text(d.from) ?? '?').replace(/-/g, ' ')} → ${(text(d.to) ?? '?').replace(/-/g, ' ')}`,
+  'inspection_round.close': (_d, id) => `Closed inspection round ${id ?? ''}`.trim(),
+  'inspection_round.reopen': (_d, id) => `Opened inspection round ${id ?? ''} again`,
+  'inspection_photo.create': (d) => `Added a photo to an inspection${d.locationKept ? ' (with its location)' : ''}`,
   'elevation_model.upload': (d) => `Uploaded elevation model${quoted(d.name)}`,
   'elevation_model.delete': (d) => `Deleted elevation model${quoted(d.name)}`,
   'terrain_run.start': () => 'Started a terrain run',

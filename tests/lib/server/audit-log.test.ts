@@ -62,7 +62,10 @@ describe('the change log', () => {
     expect(describeChange('work_order.item_state', { label: 'North fence', to: 'done', workOrderId: 5, note: 'Tie re-set' }, '9')).toBe('Marked North fence done (work order 5): “Tie re-set”');
     expect(describeChange('fence_line.status', { name: 'North fence', from: 'approved', to: 'building', workOrderId: 5 }, '2')).toBe('Fence line “North fence” went from approved to building (work order 5)');
     expect(describeChange('rain_event.delete', { title: 'March storm' }, '5')).toBe('Rain event 5: delete “March storm”');
+    expect(describeChange('rain_event.create', { fellOn: '2026-11-20', rainfallMm: 42, scope: 'property', crossingIds: [3, 4] }, '1')).toBe('Recorded 42 mm of rain on 2026-11-20: 2 crossings to inspect');
+    expect(describeChange('inspection_check.update', { crossingId: 4, from: 'not-checked', to: 'tie-reset' }, '8')).toBe('Inspected crossing 4: not checked → tie reset');
     expect(groupOfAction('work_order.send')).toBe('work');
+    expect(groupOfAction('inspection_photo.create')).toBe('inspections');
     expect(groupOfAction('something.else')).toBeNull();
   });
 
