@@ -46,7 +46,13 @@ export async function startBuiltServer(dataDir: string, extraEnv: Record<string,
   let output = '';
   server.stdout?.on('data', (chunk: Buffer) => (output += chunk.toString()));
   server.stderr?.on('data', (chunk: Buffer) => (output += chunk.toString()));
+  let stopping = false;
+  // A server that dies while tests run (not killed by a test) takes its reason with it unless shown here.
+  server.once('exit', (code, signal) => {
+    if (!stopping && !server.killed) console.error(`\nThe test server on ${baseUrl} stopped unexpectedly (exit code ${code}, signal ${signal}). Its last output:\n${output.slice(-20_000)}`);
+  });
   const stop = async () => {
+    stopping = true;
     // A server already gone (exited, or killed by a signal) has nothing left to stop.
     if (server.exitCode === null && server.signalCode === null) {
       server.kill('SIGTERM');

@@ -26,11 +26,14 @@ export type StoredDesign = CrossingDesign & {
 export type ComputedCrossings = { rows: Record<string, unknown>[]; designed: number; old: StoredCrossingPlace[] };
 
 /**
- * The same crossing found again (same fence and drainage line, within 30 m along the fence)
- * keeps its id and what the person entered for it.
+ * The same crossing found again keeps its id — and so what the person entered for it, its work
+ * order items and its inspection history: the same fence and drainage line within 30 m along the
+ * fence, or, once a new terrain run has replaced the drainage lines (which clears the old
+ * crossings' link), the same fence within 30 m.
  */
 export function matchingCrossing<T extends StoredCrossingPlace>(old: T[], fenceId: number, drainageId: number, chainageM: number): T | undefined {
-  return old.find((row) => row.fence_line_id === fenceId && row.drainage_line_id === drainageId && Math.abs(row.chainage_m - chainageM) < 30);
+  const near = (row: T) => row.fence_line_id === fenceId && Math.abs(row.chainage_m - chainageM) < 30;
+  return old.find((row) => near(row) && row.drainage_line_id === drainageId) ?? old.find((row) => near(row) && row.drainage_line_id === null);
 }
 
 /**
