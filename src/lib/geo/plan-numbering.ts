@@ -5,7 +5,7 @@ export const MAX_WAYPOINT_NAME_LENGTH = 20;
 
 /** A layout point with the short name a crew finds it by and a full description. */
 export interface NamedLayoutPoint extends PlanLayoutPoint {
-  /** `F3 X2 ES1`: fence 3, crossing 2, end strainer on the near side. */
+  /** `F3 X2 ES1`: fence 3, crossing 2, end strainer on the near side (`F3 X2 DD ES1` for a drop-down section). */
   readonly shortName: string;
   /** The point's code alone (`ES1`, `P4S`, `BT`). */
   readonly code: string;
@@ -25,7 +25,8 @@ export interface PlanNumbering {
 /**
  * Numbers a plan's fence lines and crossings and names the layout points of each crossing for a
  * handheld GPS: `F{fence} X{crossing} {code}`, at most {@link MAX_WAYPOINT_NAME_LENGTH}
- * characters. Codes: `ES1`/`ES2` end strainers on the near (lower chainage) and far side,
+ * characters, with `DD` before the code at a crossing built as a drop-down section (the crew
+ * looks for a hung section between end assemblies there, not a floodgate). Codes: `ES1`/`ES2` end strainers on the near (lower chainage) and far side,
  * `FR1`/`FR2` flex-run strainers likewise, `P{n}` the layout's post n (counted from the near
  * side, the number in its label) with `S` added for a stayed post, `BT` the breakaway
  * tie (`BT1`, `BT2` … when there are several). Our own scheme, not taken from any other program.
@@ -49,7 +50,7 @@ export function numberPlan(plan: PlanForExport): PlanNumbering {
     const fenceName = fenceNames.get(crossing.fenceLineId) ?? '';
     return crossing.layoutPoints.map((point, i) => {
       const code = codes[i]!;
-      const shortName = `${tag} ${code}`.slice(0, MAX_WAYPOINT_NAME_LENGTH);
+      const shortName = `${tag}${crossing.style === 'drop-down-section' ? ' DD' : ''} ${code}`.slice(0, MAX_WAYPOINT_NAME_LENGTH);
       return { ...point, code, shortName, description: describe(point, tag, fenceName, crossing.style) };
     });
   };

@@ -39,21 +39,26 @@ describe('planToGpx', () => {
     expect(childNames(wpts[0]!)).toEqual(['ele', 'name', 'desc', 'type']);
   });
 
-  it('names the crossing style in each waypoint description: the crew finds a drop-down section, not a floodgate', () => {
+  it('names the crossing style in each waypoint name and description: the crew finds a drop-down section, not a floodgate', () => {
     const plan = samplePlan();
     const dropDown = { ...plan, crossings: plan.crossings.map((c) => ({ ...c, style: c.style && 'drop-down-section' })) };
-    const descs = waypoints(planToGpx(dropDown)).map((w) => text(w, 'desc'));
+    const wpts = waypoints(planToGpx(dropDown));
+    const descs = wpts.map((w) => text(w, 'desc'));
     expect(descs.length).toBeGreaterThan(0);
     expect(descs.every((d) => d?.includes('built as a drop-down section'))).toBe(true);
+    expect(wpts.map((w) => text(w, 'name'))).toEqual(['F1 X1 DD ES1', 'F1 X1 DD ES2', 'F1 X1 DD FR1', 'F1 X1 DD FR2', 'F1 X1 DD P1', 'F1 X1 DD P2S', 'F1 X1 DD P3', 'F1 X1 DD BT']);
   });
 
   it('keeps every name within the handheld limit and unique, with lat/lon in GPX range (property test)', () => {
     const point = (kind: PlanLayoutPoint['kind'], chainageM: number, braced = false): PlanLayoutPoint => ({
       kind, label: kind, chainageM, position: [179.9999999999, -89.9], braced, hungDropperLink: null, beyondFence: false, elevationM: null,
     });
-    const arbitraryPlan = fc.record({ fences: fc.integer({ min: 1, max: 400 }), crossingsOnLast: fc.integer({ min: 1, max: 60 }), posts: fc.integer({ min: 1, max: 120 }), ties: fc.integer({ min: 1, max: 3 }) });
+    const arbitraryPlan = fc.record({
+      fences: fc.integer({ min: 1, max: 400 }), crossingsOnLast: fc.integer({ min: 1, max: 60 }), posts: fc.integer({ min: 1, max: 120 }), ties: fc.integer({ min: 1, max: 3 }),
+      style: fc.constantFrom('continuous-floodgate', 'drop-down-section'),
+    });
     fc.assert(
-      fc.property(arbitraryPlan, ({ fences, crossingsOnLast, posts, ties }) => {
+      fc.property(arbitraryPlan, ({ fences, crossingsOnLast, posts, ties, style }) => {
         const base = samplePlan();
         const fenceLines = Array.from({ length: fences }, (_, i) => ({ ...base.fenceLines[1]!, id: i + 1 }));
         const crossings: PlanCrossing[] = Array.from({ length: crossingsOnLast }, (_, i) => ({
@@ -61,6 +66,7 @@ describe('planToGpx', () => {
           id: 1000 + i,
           fenceLineId: fences,
           chainageM: 100 * i,
+          style,
           // Only the last crossing (the highest number) has a layout, to keep each case small.
           layoutPoints: i < crossingsOnLast - 1 ? [] : [
             point('end-strainer', 10), point('end-strainer', 90), point('flex-run-strainer', 0), point('flex-run-strainer', 100),
@@ -72,7 +78,7 @@ describe('planToGpx', () => {
         const wpts = waypoints(planToGpx(plan));
         const names = wpts.map((w) => text(w, 'name')!);
         expect(wpts).toHaveLength(4 + posts + ties);
-        expect(names[0]).toBe(`F${fences} X${crossingsOnLast} ES1`);
+        expect(names[0]).toBe(`F${fences} X${crossingsOnLast}${style === 'drop-down-section' ? ' DD' : ''} ES1`);
         expect(new Set(names).size).toBe(names.length);
         for (const [i, w] of wpts.entries()) {
           expect(names[i]!.length).toBeLessThanOrEqual(MAX_WAYPOINT_NAME_LENGTH);
