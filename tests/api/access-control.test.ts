@@ -22,7 +22,9 @@ function routesWithObjectIds(): { method: string; route: string; params: string[
       if (entry.isDirectory()) walk(full);
       else if (/\.(ts|js)$/.test(entry.name)) {
         const route = '/' + path.relative(root, full).replace(/\.(ts|js)$/, '').replace(/\/index$/, '').split(path.sep).join('/');
-        const params = [...route.matchAll(/\[([^\]]+)\]/g)].map((m) => m[1]!).filter((p) => p !== 'id' && p !== 'code' && !p.startsWith('...'));
+        // Not object ids: the property itself, an EPSG code, tile coordinates, and a contractor's
+        // link token (a capability: whoever holds it reads that one order, by design).
+        const params = [...route.matchAll(/\[([^\]]+)\]/g)].map((m) => m[1]!).filter((p) => !['id', 'code', 'z', 'x', 'y', 'token'].includes(p) && !p.startsWith('...'));
         if (params.length === 0) continue;
         const source = readFileSync(full, 'utf8');
         for (const match of source.matchAll(/export\s+(?:const|async\s+function|function)\s+(GET|POST|PUT|PATCH|DELETE|ALL)\b/g)) found.push({ method: match[1]!, route, params });
@@ -40,6 +42,11 @@ const BODIES: Record<string, unknown> = {
   'PATCH /api/properties/[id]/crossings/[crossingId]': { floodMarkM: 1.1 },
   'POST /api/properties/[id]/crossings/[crossingId]/realignment': { version: 1 },
   'PATCH /api/properties/[id]/members/[userId]': { role: 'viewer' },
+  'PATCH /api/properties/[id]/work-orders/[orderId]': { title: 'Taken over', version: 1 },
+  'POST /api/properties/[id]/work-orders/[orderId]/send': { version: 1 },
+  'PATCH /api/properties/[id]/work-orders/[orderId]/items/[itemId]': { state: 'done', note: '' },
+  'PATCH /api/properties/[id]/inspection-rounds/[roundId]': { status: 'closed', version: 1 },
+  'PATCH /api/properties/[id]/inspection-rounds/[roundId]/checks/[checkId]': { status: 'intact', note: '', version: 1 },
 };
 
 const now = () => new Date().toISOString();
@@ -56,7 +63,10 @@ async function insert(table: string, row: Record<string, unknown>): Promise<numb
 
 /** Everything stored about the victim's property, to show a refused request changed none of it. */
 async function victimState(): Promise<string> {
-  const tables = ['fence_lines', 'crossings', 'paddocks', 'tracks', 'elevation_models', 'terrain_runs', 'invitations', 'memberships', 'audit_log', 'property_settings'];
+  const tables = [
+    'fence_lines', 'crossings', 'paddocks', 'tracks', 'elevation_models', 'terrain_runs', 'invitations', 'memberships', 'audit_log', 'property_settings',
+    'work_orders', 'rain_events', 'inspection_rounds', 'inspection_checks', 'inspection_photos',
+  ];
   const state: Record<string, unknown> = {};
   for (const table of tables) state[table] = await serverDb()(table).where({ property_id: victimProperty }).orderBy(table === 'memberships' || table === 'property_settings' ? 'property_id' : 'id');
   return JSON.stringify(state);
@@ -83,6 +93,17 @@ beforeAll(async () => {
     property_id: victimProperty, email: newAccount('victim-invitee').email, role: 'crew', token_hash: createHash('sha256').update(randomBytes(24)).digest('hex'),
     expires_at: new Date(Date.now() + 86_400_000).toISOString(), created_at: now(),
   });
+  victimIds.orderId = await insert('work_orders', { property_id: victimProperty, title: 'Victim order', status: 'sent', version: 1, created_at: now(), updated_at: now() });
+  victimIds.itemId = await insert('work_order_items', { work_order_id: victimIds.orderId, fence_line_id: victimIds.fenceId, position: 1 });
+  const rainEventId = await insert('rain_events', { property_id: victimProperty, fell_on: '2026-11-20', rainfall_mm: 40, scope: 'property', created_at: now() });
+  victimIds.roundId = await insert('inspection_rounds', { property_id: victimProperty, rain_event_id: rainEventId, status: 'open', version: 1, created_at: now() });
+  victimIds.checkId = await insert('inspection_checks', {
+    property_id: victimProperty, round_id: victimIds.roundId, crossing_id: victimIds.crossingId, position: 1, crossing_label: 'Victim fence at 475 m', selected_by: 'property',
+  });
+  victimIds.photoId = await insert('inspection_photos', {
+    property_id: victimProperty, check_id: victimIds.checkId, storage_key: `victim/${randomBytes(6).toString('hex')}.jpg`, thumbnail_key: `victim/${randomBytes(6).toString('hex')}-t.jpg`,
+    content_type: 'image/jpeg', size_bytes: 1, width: 1, height: 1, created_at: now(),
+  });
   const member = await signedInClient('victim-member');
   await serverDb()('memberships').insert({ property_id: victimProperty, user_id: member.userId, role: 'crew', created_at: now() });
   victimIds.userId = member.userId;
@@ -101,14 +122,14 @@ describe('an object id of another property', () => {
   it('covers every kind of object id the routes take (a new kind needs an object here)', () => {
     expect(routes.length).toBeGreaterThanOrEqual(19);
     const kinds = [...new Set(routes.flatMap((r) => r.params))].sort();
-    expect(kinds).toEqual(['crossingId', 'fenceId', 'invitationId', 'modelId', 'paddockId', 'runId', 'trackId', 'userId']);
+    expect(kinds).toEqual(['checkId', 'crossingId', 'fenceId', 'invitationId', 'itemId', 'modelId', 'orderId', 'paddockId', 'photoId', 'roundId', 'runId', 'trackId', 'userId']);
   });
 
   it.each(routes.map((r) => [`${r.method} ${r.route}`, r] as const))('%s answers 404 and changes nothing', async (key, { method, route, params }) => {
     const url = params.reduce((u, param) => {
       expect(victimIds[param], `no object of the victim's for [${param}]`).toBeDefined();
       return u.replace(`[${param}]`, String(victimIds[param]));
-    }, route.replace('[id]', String(attackerProperty)));
+    }, route.replace('[id]', String(attackerProperty)).replace('[z]/[x]/[y]', '14/14638/9737'));
     const before = await victimState();
     const response = await attacker.request(method === 'ALL' ? 'GET' : method, url, BODIES[key]);
     expect(response.status, key).toBe(404);
@@ -119,7 +140,8 @@ describe('an object id of another property', () => {
   it('the same reads by a manager of the victim\'s property reach the objects (so the 404s above are not typos)', async () => {
     const manager = await signedInClient('victim-manager');
     await serverDb()('memberships').insert({ property_id: victimProperty, user_id: manager.userId, role: 'manager', created_at: now() });
-    for (const [route, param] of [['fence-lines', 'fenceId'], ['paddocks', 'paddockId'], ['crossings', 'crossingId'], ['terrain-runs', 'runId']] as const) {
+    const reads = [['fence-lines', 'fenceId'], ['paddocks', 'paddockId'], ['crossings', 'crossingId'], ['terrain-runs', 'runId'], ['work-orders', 'orderId'], ['inspection-rounds', 'roundId']] as const;
+    for (const [route, param] of reads) {
       const response = await manager.client.request('GET', `/api/properties/${victimProperty}/${route}/${victimIds[param]}`);
       expect(response.status, route).toBe(200);
     }

@@ -23,7 +23,12 @@ const SOUTH = [[[141.64, -31.45], [141.66, -31.45], [141.66, -31.44], [141.64, -
 async function insertCrossing(fenceLineId: number, lonLat: [number, number], areaHa: number, style: string | null, chainageM: number): Promise<number> {
   const design = style ? JSON.stringify({ layout: { style, floodgate: { lengthM: 20 } }, floods: { levelM: 1 } }) : null;
   const [row] = await serverDb()('crossings')
-    .insert({ property_id: propertyId, fence_line_id: fenceLineId, kind: 'crossing', lon: lonLat[0], lat: lonLat[1], chainage_m: chainageM, angle_deg: 85, angle_class: 'good', upstream_area_m2: areaHa * 10_000, design, design_status: style ? 'designed' : 'pending' })
+    .insert({
+      property_id: propertyId, fence_line_id: fenceLineId, kind: 'crossing', lon: lonLat[0], lat: lonLat[1], chainage_m: chainageM, angle_deg: 85, angle_class: 'good',
+      upstream_area_m2: areaHa * 10_000, design, design_status: style ? 'designed' : 'pending',
+      // The list figures the analysis copies beside the design (crossing-row.ts).
+      design_style: style, design_flood_level_m: style ? 1 : null, design_floodgate_length_m: style ? 20 : null,
+    })
     .returning('id');
   return row.id;
 }

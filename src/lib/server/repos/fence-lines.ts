@@ -1,6 +1,6 @@
 import type { Knex } from 'knex';
 import { boundsOf, lineLengthM } from '../../geo/measure';
-import { fenceLineSchemas, type FenceLine, type FenceLineInput, type FenceStatus, type WireSpec } from '../../schemas/plan';
+import { fenceLineSchemas, wireSpecSchema, type FenceLine, type FenceLineInput, type FenceStatus } from '../../schemas/plan';
 import { checkFenceLine, cleanFenceLine } from '../../crossings/geometry/fence-checks';
 import { getConfig } from '../config';
 import { db } from '../db';
@@ -26,7 +26,8 @@ function rowToFence(row: FenceRow): FenceLine {
     status: row.status,
     coordinates: (JSON.parse(row.geometry) as { coordinates: [number, number][] }).coordinates,
     lengthM: row.length_m,
-    wireSpec: JSON.parse(row.wire_spec) as WireSpec,
+    // Through the schema, so a row stored with fewer fields (older rows, hand-made ones) gets the defaults.
+    wireSpec: wireSpecSchema.parse(JSON.parse(row.wire_spec)),
     version: row.version,
     updatedAt: row.updated_at,
   };
