@@ -28,7 +28,7 @@ import { designCrossing } from '../src/lib/crossings/design-crossing';
 import { buildDrainageIndex, findCrossings } from '../src/lib/crossings/geometry/index';
 import type { Crossing, RunsAlong } from '../src/lib/crossings/geometry/types';
 import { positionsOfLayout } from '../src/lib/crossings/layout-positions';
-import { crossingRow } from '../src/lib/server/crossings/crossing-row';
+import { crossingRow, runsAlongRow } from '../src/lib/server/crossings/crossing-row';
 import { boundsOf, lineLengthM } from '../src/lib/geo/measure';
 import { createFromWgs84, createToWgs84, roundLonLat } from '../src/lib/geo/reproject';
 import { DEFAULT_DESIGN_SETTINGS } from '../src/lib/schemas/crossing';
@@ -370,7 +370,7 @@ export async function seedBenchProperty(seed: number): Promise<SeededProperty & 
   });
   const slopeOf = new Map(drainage.map((segment, index) => [drainageIds[index]!, segment.meanSlope]));
   const statuses: Record<string, number> = {};
-  const crossingRows = await timed('design crossings', () =>
+  const crossingRows: Record<string, unknown>[] = await timed('design crossings', () =>
     chosen.map((crossing) => {
       const design = crossing.kind === 'crossing' ? designAt(crossing, fenceById.get(Number(crossing.fenceId))!, slopeOf.get(Number(crossing.drainageId)) ?? 0.002, random, ifd) : null;
       const status = design?.status ?? 'touch';
@@ -381,19 +381,7 @@ export async function seedBenchProperty(seed: number): Promise<SeededProperty & 
   for (const along of runsAlong) {
     const at = fenceById.get(Number(along.fenceId))!.wgs84[0]!;
     statuses['runs-along'] = (statuses['runs-along'] ?? 0) + 1;
-    crossingRows.push({
-      property_id: property.id,
-      fence_line_id: Number(along.fenceId),
-      drainage_line_id: Number(along.drainageId),
-      kind: 'runs-along',
-      lon: at[0],
-      lat: at[1],
-      chainage_m: along.fromChainageM,
-      inputs: '{}',
-      design: JSON.stringify({ fromChainageM: along.fromChainageM, toChainageM: along.toChainageM, lengthM: along.lengthM }),
-      design_status: 'runs-along',
-      computed_at: now,
-    } as (typeof crossingRows)[number]);
+    crossingRows.push(runsAlongRow({ propertyId: property.id, fenceLineId: Number(along.fenceId), drainageLineId: Number(along.drainageId), at: [at[0]!, at[1]!], along, computedAt: now }));
   }
   await timed('store crossings', () => db().transaction((trx) => trx.batchInsert('crossings', crossingRows, 50)));
 

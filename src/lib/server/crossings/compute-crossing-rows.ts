@@ -9,7 +9,7 @@ import { listFenceLines } from '../repos/fence-lines';
 import { getPropertySettings } from '../repos/property-settings';
 import { catchmentFiguresAt, profileAlong } from '../terrain/terrain-queries';
 import { positionsOfLayout, type LayoutPositions } from '../../crossings/layout-positions';
-import { crossingRow } from './crossing-row';
+import { crossingRow, runsAlongRow } from './crossing-row';
 
 type DrainageRow = { id: number; property_id: number; geometry: string; stream_order: number; upstream_area_start_m2: number; upstream_area_end_m2: number; mean_slope: number };
 type OldCrossing = { id: number; fence_line_id: number; drainage_line_id: number | null; kind: string; chainage_m: number; inputs: string };
@@ -91,19 +91,7 @@ export async function computeCrossingRows(propertyId: number, fenceLineIds?: num
   for (const along of found.runsAlong) {
     const fence = fences.find((f) => f.id === along.fenceId)!;
     const at = fence.coordinates[0]!;
-    rows.push({
-      property_id: propertyId,
-      fence_line_id: fence.id,
-      drainage_line_id: Number(along.drainageId),
-      kind: 'runs-along',
-      lon: at[0],
-      lat: at[1],
-      chainage_m: along.fromChainageM,
-      inputs: '{}',
-      design: JSON.stringify({ fromChainageM: along.fromChainageM, toChainageM: along.toChainageM, lengthM: along.lengthM }),
-      design_status: 'runs-along',
-      computed_at: new Date().toISOString(),
-    });
+    rows.push(runsAlongRow({ propertyId, fenceLineId: fence.id, drainageLineId: Number(along.drainageId), at, along, computedAt: new Date().toISOString() }));
   }
   return { rows, designed, old: old.map(({ id, fence_line_id, drainage_line_id, chainage_m }) => ({ id, fence_line_id, drainage_line_id, chainage_m })) };
 }

@@ -39,3 +39,35 @@ export function crossingRow(input: { propertyId: number; crossing: Crossing; des
     computed_at: computedAt,
   };
 }
+
+/**
+ * The `crossings` row of a stretch where a fence runs along a drainage line (no design): with the
+ * same columns as a designed crossing's, so rows can be inserted together.
+ */
+export function runsAlongRow(input: {
+  propertyId: number;
+  fenceLineId: number;
+  drainageLineId: number;
+  at: [number, number];
+  along: { fromChainageM: number; toChainageM: number; lengthM: number };
+  computedAt: string;
+}) {
+  const { propertyId, fenceLineId, drainageLineId, at, along, computedAt } = input;
+  return {
+    property_id: propertyId,
+    fence_line_id: fenceLineId,
+    drainage_line_id: drainageLineId,
+    kind: 'runs-along',
+    lon: at[0],
+    lat: at[1],
+    chainage_m: along.fromChainageM,
+    inputs: '{}',
+    design: JSON.stringify({ fromChainageM: along.fromChainageM, toChainageM: along.toChainageM, lengthM: along.lengthM }),
+    design_status: 'runs-along',
+    computed_at: computedAt,
+    design_provisional: false,
+    design_style: null,
+    design_flood_level_m: null,
+    design_floodgate_length_m: null,
+  };
+}
