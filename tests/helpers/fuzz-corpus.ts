@@ -1,6 +1,7 @@
 // Damaged files for the importers, made from good ones by a seeded generator: the same seed gives
 // the same files, so a failing case is replayed with FUZZ_SEED=<seed> (printed in the failure).
 import { encodeGeoTiff } from '../../src/lib/server/elevation/write-geotiff';
+import { createMulberry32 } from '../../data-samples/lib/prng';
 
 /** The seed of this run: FUZZ_SEED when set (to replay or explore), else a fixed one. */
 export function fuzzSeed(): number {
@@ -8,16 +9,9 @@ export function fuzzSeed(): number {
   return value && Number.isSafeInteger(Number(value)) ? Number(value) : 20261202;
 }
 
-/** Mulberry32: a small, fast 32-bit generator; plenty for choosing where to damage a file. */
+/** The demo data's Mulberry32 generator: small, fast, plenty for choosing where to damage a file. */
 export function seededRandom(seed: number): () => number {
-  let state = seed >>> 0;
-  return () => {
-    state = (state + 0x6d2b79f5) >>> 0;
-    let t = state;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
+  return createMulberry32(seed);
 }
 
 export type FuzzCase = { readonly label: string; readonly bytes: Uint8Array };

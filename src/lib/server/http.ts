@@ -121,9 +121,18 @@ export function parseWith<T>(schema: ZodType<T, ZodTypeDef, unknown>, value: unk
 
 /** Reads a request body as UTF-8 text, refusing it past `limitBytes` (413). */
 export async function readTextWithin(request: Request, limitBytes: number): Promise<string> {
+  if (!request.body && !(Number(request.headers.get('content-length') ?? 'NaN') > limitBytes)) return '';
+  return (await readBytesWithin(request, limitBytes, () => new PayloadTooLargeError(limitBytes))).toString('utf8');
+}
+
+/**
+ * Reads a request body into memory, stopping as soon as it passes `limitBytes` (declared or
+ * counted) with the error `tooLarge` makes. An absent body reads as no bytes.
+ */
+export async function readBytesWithin(request: Request, limitBytes: number, tooLarge: () => Error): Promise<Buffer> {
   const declared = Number(request.headers.get('content-length') ?? 'NaN');
-  if (declared > limitBytes) throw new PayloadTooLargeError(limitBytes);
-  if (!request.body) return '';
+  if (declared > limitBytes) throw tooLarge();
+  if (!request.body) return Buffer.alloc(0);
   const chunks: Uint8Array[] = [];
   let total = 0;
   const reader = request.body.getReader();
@@ -133,11 +142,11 @@ export async function readTextWithin(request: Request, limitBytes: number): Prom
     total += value.byteLength;
     if (total > limitBytes) {
       await reader.cancel();
-      throw new PayloadTooLargeError(limitBytes);
+      throw tooLarge();
     }
     chunks.push(value);
   }
-  return Buffer.concat(chunks).toString('utf8');
+  return Buffer.concat(chunks);
 }
 
 /** Parses a numeric route parameter; anything else is an unknown object (404). */

@@ -1,7 +1,7 @@
 import { randomUUID } from 'node:crypto';
 import { getConfig } from '../config';
 import { db } from '../db';
-import { BadRequestError, ConflictError, DomainError, NotFoundError } from '../http';
+import { BadRequestError, ConflictError, DomainError, NotFoundError, readBytesWithin } from '../http';
 import { photoStore, type PhotoStore } from '../photo-storage';
 import { recordAudit } from '../repos/audit-log';
 import { findCheck, rowToPhoto, type PhotoRow } from '../repos/inspections';
@@ -19,23 +19,8 @@ const FORM_ALLOWANCE_BYTES = 64 * 1024;
 
 /** Reads a request body into memory up to `limitBytes` (the photo limit plus the form's framing). */
 async function readBody(request: Request, limitBytes: number, photoLimit: number): Promise<Buffer> {
-  const declared = Number(request.headers.get('content-length') ?? 'NaN');
-  if (declared > limitBytes) throw new PhotoTooLargeError(photoLimit);
   if (!request.body) throw new BadRequestError('The upload is empty: take or choose a photo and send it again.');
-  const chunks: Uint8Array[] = [];
-  let total = 0;
-  const reader = request.body.getReader();
-  for (;;) {
-    const { done, value } = await reader.read();
-    if (done) break;
-    total += value.byteLength;
-    if (total > limitBytes) {
-      await reader.cancel();
-      throw new PhotoTooLargeError(photoLimit);
-    }
-    chunks.push(value);
-  }
-  return Buffer.concat(chunks);
+  return readBytesWithin(request, limitBytes, () => new PhotoTooLargeError(photoLimit));
 }
 
 /** A file name as a phone sends it: no folders, no climbing out of one, no control characters. */
