@@ -246,6 +246,31 @@ describe('rain events and inspection rounds', () => {
     expect((await new TestClient().request('GET', `/api/properties/${propertyId}/photos/${photo.id}`)).status).toBe(401);
   });
 
+  it('a photo is removed by whoever sent it or a manager, not by other crew: row, audit entry and both files', async () => {
+    const checkId = round.checks[0]!.id;
+    const jpeg = await gpsJpeg();
+    const sent = await upload(people.crew.client, { checkId, file: { bytes: jpeg, name: 'IMG_0200.jpg', type: 'image/jpeg' } });
+    const other = await upload(people.crew.client, { checkId, file: { bytes: jpeg, name: 'IMG_0201.jpg', type: 'image/jpeg' } });
+    const filesBefore = photoFiles();
+    const route = (id: number) => `/api/properties/${propertyId}/photos/${id}`;
+
+    const refused = await people.crew2.client.json<{ error: string }>('DELETE', route(sent.body.photo!.id));
+    expect(refused.status).toBe(403);
+    expect(refused.body.error).toMatch(/Only whoever sent a photo, an owner or a manager/);
+    expect((await people.viewer.client.request('DELETE', route(sent.body.photo!.id))).status).toBe(403);
+    expect(photoFiles()).toBe(filesBefore);
+
+    expect((await people.crew.client.request('DELETE', route(sent.body.photo!.id))).status).toBe(204);
+    expect((await people.manager.client.request('DELETE', route(other.body.photo!.id))).status).toBe(204);
+    expect(await serverDb()('inspection_photos').whereIn('id', [sent.body.photo!.id, other.body.photo!.id])).toEqual([]);
+    // Each photo is stored with its thumbnail: four files fewer.
+    expect(photoFiles()).toBe(filesBefore - 4);
+    expect((await people.viewer.client.request('GET', route(sent.body.photo!.id))).status).toBe(404);
+    expect((await people.crew.client.request('DELETE', route(sent.body.photo!.id))).status).toBe(404);
+    const removals = await serverDb()('audit_log').where({ property_id: propertyId, action: 'inspection_photo.delete' }).pluck('entity_id');
+    expect(removals.sort()).toEqual([String(sent.body.photo!.id), String(other.body.photo!.id)].sort());
+  });
+
   it('a crossing damaged in two rounds is flagged for redesign on the list and has both rounds in its history', async () => {
     const second = (await recordRain(people.manager.client, rainOnProperty('2026-12-01', 80))).body.round;
     for (const [r, status] of [[round, 'damaged'], [second, 'washed-out']] as const) {

@@ -308,6 +308,8 @@ const MATRIX: Record<string, Entry> = {
   'PATCH /api/properties/[id]/inspection-rounds/[roundId]/checks/[checkId]': { expect: atLeast('crew', 200), prepare: spareRound, body: () => ({ status: 'intact', version: 1 }) },
   'POST /api/properties/[id]/photos': { expect: atLeast('crew', 201), prepare: spareRound, form: async ({ checkId }) => photoForm(checkId) },
   'GET /api/properties/[id]/photos/[photoId]': { expect: atLeast('viewer', 200), prepare: sparePhoto },
+  // Sent by the owner: crew who did not send it may not remove it.
+  'DELETE /api/properties/[id]/photos/[photoId]': { expect: atLeast('manager', 204), prepare: sparePhoto },
   'GET /api/properties/[id]/crossings/[crossingId]/inspections': { expect: atLeast('viewer', 200), prepare: currentCrossing },
   'GET /api/properties/[id]/crossings/redesign-flags': { expect: atLeast('viewer', 200) },
   'GET /api/properties/[id]/terrain-runs/[runId]/drainage/[z]/[x]/[y]': { expect: atLeast('viewer', 200), prepare: currentRun },

@@ -69,6 +69,14 @@ describe('inspections after rain', () => {
     const thumbnail = checks.first().getByTestId('check-photos').locator('img').first();
     await thumbnail.waitFor();
     await expect.poll(() => thumbnail.evaluate((img: HTMLImageElement) => img.naturalWidth), { timeout: 10_000 }).toBe(320);
+    // A photo sent by mistake is removed by its sender (after a confirmation).
+    await checks.first().getByTestId('photo-input').setInputFiles({ name: 'IMG_2042.jpg', mimeType: 'image/jpeg', buffer: jpeg });
+    const photos = checks.first().getByTestId('check-photos').locator('img');
+    await expect.poll(() => photos.count(), { timeout: 20_000 }).toBe(2);
+    phone.page.once('dialog', (dialog) => void dialog.accept());
+    await checks.first().getByTestId('check-photos').getByRole('button', { name: 'Remove' }).nth(1).click();
+    await checks.first().getByRole('status').filter({ hasText: 'Photo removed' }).waitFor({ timeout: 20_000 });
+    await expect.poll(() => photos.count(), { timeout: 10_000 }).toBe(1);
     await markFirstDamaged(phone.page, firstRound!);
     await checks.nth(1).getByRole('button', { name: 'Intact', exact: true }).click();
     await expect.poll(async () => (await checks.nth(1).getByTestId('check-status').textContent()) ?? '', { timeout: 15_000 }).toMatch(/^Intact/);

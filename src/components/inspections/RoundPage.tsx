@@ -5,12 +5,12 @@ import { ApiError, api, uploadPhoto } from '../../lib/client/api';
 import type { CheckView, RoundView } from '../../lib/schemas/inspection';
 import { withQueryClient } from '../QueryRoot';
 
-type Props = { propertyId: number; initialRound: RoundView; canRecord: boolean; canManage: boolean };
+type Props = { propertyId: number; initialRound: RoundView; canRecord: boolean; canManage: boolean; userId: number };
 
 const STYLE_NAMES: Record<string, string> = { 'continuous-floodgate': 'Continuous swinging floodgate', 'drop-down-section': 'Separate drop-down section' };
 
 /** One inspection round, made for a phone in the paddock: the crossings in order, what to look at, large status buttons, a note and photos. */
-function RoundPage({ propertyId, initialRound, canRecord, canManage }: Props) {
+function RoundPage({ propertyId, initialRound, canRecord, canManage, userId }: Props) {
   const queryClient = useQueryClient();
   const key = ['round', propertyId, initialRound.id];
   const round = useQuery({ queryKey: key, queryFn: () => api.getRound(propertyId, initialRound.id).then((answer) => answer.round), initialData: initialRound }).data;
@@ -52,7 +52,14 @@ function RoundPage({ propertyId, initialRound, canRecord, canManage }: Props) {
       <ol className="flex flex-col gap-4">
         {round.checks.map((check) => (
           <li key={check.id}>
-            <CheckCard propertyId={propertyId} roundId={round.id} check={check} editable={editable} onChanged={() => queryClient.invalidateQueries({ queryKey: key })} />
+            <CheckCard
+              propertyId={propertyId}
+              roundId={round.id}
+              check={check}
+              editable={editable}
+              canRemovePhoto={(photo) => editable && (canManage || photo.uploadedById === userId)}
+              onChanged={() => queryClient.invalidateQueries({ queryKey: key })}
+            />
           </li>
         ))}
       </ol>
@@ -60,7 +67,16 @@ function RoundPage({ propertyId, initialRound, canRecord, canManage }: Props) {
   );
 }
 
-function CheckCard({ propertyId, roundId, check, editable, onChanged }: { propertyId: number; roundId: number; check: CheckView; editable: boolean; onChanged: () => Promise<void> }) {
+type CheckCardProps = {
+  propertyId: number;
+  roundId: number;
+  check: CheckView;
+  editable: boolean;
+  canRemovePhoto: (photo: CheckView['photos'][number]) => boolean;
+  onChanged: () => Promise<void>;
+};
+
+function CheckCard({ propertyId, roundId, check, editable, canRemovePhoto, onChanged }: CheckCardProps) {
   const [note, setNote] = useState(check.note);
   const [keepLocation, setKeepLocation] = useState(false);
   const [message, setMessage] = useState<{ kind: 'error' | 'saved'; text: string } | null>(null);
@@ -82,6 +98,14 @@ function CheckCard({ propertyId, roundId, check, editable, onChanged }: { proper
     mutationFn: (file: File) => uploadPhoto(propertyId, check.id, file, keepLocation),
     onSuccess: async () => {
       setMessage({ kind: 'saved', text: 'Photo added.' });
+      await onChanged();
+    },
+    onError: (error) => setMessage({ kind: 'error', text: error.message }),
+  });
+  const removePhoto = useMutation({
+    mutationFn: (photoId: number) => api.removePhoto(propertyId, photoId),
+    onSuccess: async () => {
+      setMessage({ kind: 'saved', text: 'Photo removed.' });
       await onChanged();
     },
     onError: (error) => setMessage({ kind: 'error', text: error.message }),
@@ -148,13 +172,27 @@ function CheckCard({ propertyId, roundId, check, editable, onChanged }: { proper
       )}
       {!editable && check.note && <p className="mt-2 text-sm">{check.note}</p>}
       {check.photos.length > 0 && (
-        <p className="mt-3 flex flex-wrap gap-2" data-testid="check-photos">
-          {check.photos.map((photo) => (
-            <a key={photo.id} href={photo.url} target="_blank" rel="noreferrer">
-              <img src={photo.thumbnailUrl} alt={`Photo of ${check.crossingLabel}`} className="h-20 w-20 rounded object-cover" width={80} height={80} />
-            </a>
+        <ul className="mt-3 flex flex-wrap gap-3" data-testid="check-photos">
+          {check.photos.map((photo, i) => (
+            <li key={photo.id} className="flex flex-col items-center gap-1">
+              <a href={photo.url} target="_blank" rel="noreferrer">
+                <img src={photo.thumbnailUrl} alt={`Photo ${i + 1} of ${check.crossingLabel}`} className="h-20 w-20 rounded object-cover" width={80} height={80} />
+              </a>
+              {canRemovePhoto(photo) && (
+                <button
+                  type="button"
+                  className="btn-quiet min-h-11 px-3 text-sm"
+                  disabled={removePhoto.isPending}
+                  onClick={() => {
+                    if (confirm('Remove this photo? Nobody will see it again.')) removePhoto.mutate(photo.id);
+                  }}
+                >
+                  Remove
+                </button>
+              )}
+            </li>
           ))}
-        </p>
+        </ul>
       )}
       {message && (
         <p role={message.kind === 'error' ? 'alert' : 'status'} className={`mt-2 text-sm ${message.kind === 'error' ? 'alert-error' : 'text-saltbush-700'}`}>

@@ -135,6 +135,7 @@ export const api = {
   /** Records a crossing's status and note; `version` is the one read (a 409 ApiError when someone recorded it meanwhile). */
   updateCheck: (propertyId: number, roundId: number, checkId: number, input: { status: CheckStatus; note: string; version: number }) =>
     request<{ check: CheckView }>('PATCH', `/api/properties/${propertyId}/inspection-rounds/${roundId}/checks/${checkId}`, input),
+  removePhoto: (propertyId: number, photoId: number) => request<void>('DELETE', `/api/properties/${propertyId}/photos/${photoId}`),
   crossingInspections: (propertyId: number, crossingId: number) =>
     request<{ inspections: CrossingInspectionsView }>('GET', `/api/properties/${propertyId}/crossings/${crossingId}/inspections`),
 };

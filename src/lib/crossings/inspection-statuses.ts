@@ -31,23 +31,24 @@ export function statusesForStyle(style: FloodgateStyle | string | null): CheckSt
 
 /** What the crew looks at at a crossing of a style, in the trade's words (DESIGN.md, rules of thumb). */
 export function checkGuide(style: FloodgateStyle | string | null): string[] {
-  const common = [
-    'Never enter floodwater: wait until the channel is safe to walk.',
-    'Look at the end strainers and the flex runs either side: posts upright, wires strained, no wire broken.',
-  ];
+  const safety = 'Never enter floodwater: wait until the channel is safe to walk.';
+  const ends = 'Look at the end strainers and the flex runs either side: posts upright, wires strained, no wire broken.';
   if (style === 'continuous-floodgate') {
     return [
       'Continuous swinging floodgate: see whether the breakaway tie at the lowest post let go; if it did, clear the debris off the wires and re-set the tie.',
       'Check that the hung droppers still swing on their links and hang down to the ground.',
-      ...common,
+      safety,
+      ends,
     ];
   }
   if (style === 'drop-down-section') {
     return [
       'Separate drop-down section: see whether the section dropped. Stock can get through until it is re-hung: re-hang it, or replace it if it is lost or broken.',
       'Clear the debris from the section and its hangers.',
-      ...common,
+      safety,
+      // The fence ends on its own assemblies each side: no long flex runs to look along.
+      'Look at the end assemblies on both banks: posts upright and stays firm, the fence strained up to them.',
     ];
   }
-  return ['No design yet: look at the fence across the channel for debris, leaning posts and broken wire.', ...common];
+  return ['No design yet: look at the fence across the channel for debris, leaning posts and broken wire.', safety, ends];
 }

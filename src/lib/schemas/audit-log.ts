@@ -79,6 +79,7 @@ const DESCRIBE: Record<string, (detail: Detail, entityId: string | null, subject
   'inspection_round.close': (_d, id) => `Closed inspection round ${id ?? ''}`.trim(),
   'inspection_round.reopen': (_d, id) => `Opened inspection round ${id ?? ''} again`,
   'inspection_photo.create': (d) => `Added a photo to an inspection${d.locationKept ? ' (with its location)' : ''}`,
+  'inspection_photo.delete': () => 'Removed a photo from an inspection',
   'elevation_model.upload': (d) => `Uploaded elevation model${quoted(d.name)}`,
   'elevation_model.delete': (d) => `Deleted elevation model${quoted(d.name)}`,
   'terrain_run.start': () => 'Started a terrain run',

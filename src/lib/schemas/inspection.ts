@@ -52,6 +52,8 @@ export type PhotoView = {
   height: number;
   locationKept: boolean;
   uploadedByName: string | null;
+  /** Who sent it: they, an owner or a manager may remove it. */
+  uploadedById: number | null;
   createdAt: string;
 };
 

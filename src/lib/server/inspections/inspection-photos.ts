@@ -1,7 +1,8 @@
 import { randomUUID } from 'node:crypto';
 import { getConfig } from '../config';
 import { db } from '../db';
-import { BadRequestError, ConflictError, DomainError, NotFoundError, readBytesWithin } from '../http';
+import { hasRole, type Role } from '../../schemas/roles';
+import { BadRequestError, ConflictError, DomainError, ForbiddenError, NotFoundError, readBytesWithin } from '../http';
 import { photoStore, type PhotoStore } from '../photo-storage';
 import { recordAudit } from '../repos/audit-log';
 import { findCheck, rowToPhoto, type PhotoRow } from '../repos/inspections';
@@ -95,6 +96,31 @@ export async function addPhoto(propertyId: number, upload: PhotoUpload, userId: 
     await removeObjects();
     throw error;
   }
+}
+
+/**
+ * Removes a photo: its row and audit entry in one transaction, then its two stored objects (a
+ * failed removal is logged; the photo is already gone for everyone). The uploader, an owner or a
+ * manager may; not in a closed round.
+ * @throws NotFoundError (also for another property's photo), ForbiddenError, ConflictError
+ */
+export async function removePhoto(propertyId: number, photoId: number, user: { id: number; role: Role }, store: PhotoStore = photoStore()): Promise<void> {
+  const row = await db().transaction(async (trx) => {
+    const found = (await trx('inspection_photos as p')
+      .join('inspection_checks as c', 'c.id', 'p.check_id')
+      .join('inspection_rounds as r', 'r.id', 'c.round_id')
+      .where({ 'p.id': photoId, 'p.property_id': propertyId })
+      .first('p.*', 'r.status as round_status')) as (PhotoRow & { round_status: string }) | undefined;
+    if (!found) throw new NotFoundError('photo');
+    if (found.uploaded_by !== user.id && !hasRole(user.role, 'manager')) throw new ForbiddenError('Only whoever sent a photo, an owner or a manager can remove it.');
+    if (found.round_status === 'closed') throw new ConflictError('This inspection round is closed. Ask an owner or manager to reopen it to remove photos.');
+    await trx('inspection_photos').where({ id: photoId }).delete();
+    await recordAudit({ propertyId, userId: user.id, action: 'inspection_photo.delete', entityType: 'inspection_photo', entityId: photoId, detail: { checkId: found.check_id } }, trx);
+    return found;
+  });
+  await Promise.all([store.remove(row.storage_key), store.remove(row.thumbnail_key)]).catch((error: unknown) =>
+    console.error(`[gullyline] photo ${photoId} removed, but its stored files were not:`, error),
+  );
 }
 
 /** A photo (or its thumbnail) of the property. @throws NotFoundError, also for another property's photo */

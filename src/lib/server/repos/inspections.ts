@@ -68,6 +68,7 @@ export function rowToPhoto(row: PhotoRow): PhotoView {
     height: row.height,
     locationKept: Boolean(row.location_kept),
     uploadedByName: row.uploaded_by_name ?? null,
+    uploadedById: row.uploaded_by ?? null,
     createdAt: row.created_at,
   };
 }
