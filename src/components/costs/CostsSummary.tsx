@@ -1,10 +1,7 @@
 import type { CostsView } from '../../lib/schemas/costs-view';
+import { crossingStyleName } from '../../lib/schemas/crossing';
 import { formatAud } from './price-draft';
 
-const STYLE_NAMES: Record<string, string> = {
-  'continuous-floodgate': 'Continuous floodgate',
-  'drop-down-section': 'Drop-down section',
-};
 const km = (m: number) => `${(m / 1000).toFixed(2)} km`;
 
 /** The property's cost, then each fence line's and each designed crossing's. */
@@ -125,7 +122,7 @@ export function CostsSummary({ costs, propertyId }: { costs: CostsView; property
                     </span>
                   </div>
                   <div className="text-sm text-bark-500">
-                    {c.style ? (STYLE_NAMES[c.style] ?? c.style) : 'style not set'} · materials {formatAud(c.materialsCents)} · labour {formatAud(c.labourCents)}
+                    {c.style ? crossingStyleName(c.style) : 'style not set'} · materials {formatAud(c.materialsCents)} · labour {formatAud(c.labourCents)}
                   </div>
                 </li>
               ))}
@@ -147,7 +144,7 @@ export function CostsSummary({ costs, propertyId }: { costs: CostsView; property
                       <td className="py-2 pr-3">
                         {c.fenceName} at {Math.round(c.chainageM)} m
                       </td>
-                      <td className="py-2 pr-3">{c.style ? (STYLE_NAMES[c.style] ?? c.style) : '—'}</td>
+                      <td className="py-2 pr-3">{c.style ? crossingStyleName(c.style) : '—'}</td>
                       <td className="py-2 pr-3 text-right tabular-nums">{formatAud(c.materialsCents)}</td>
                       <td className="py-2 pr-3 text-right tabular-nums">{formatAud(c.labourCents)}</td>
                       <td className="py-2 text-right font-semibold tabular-nums">

@@ -2,12 +2,11 @@ import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import { useState, type ChangeEvent } from 'react';
 import { CHECK_STATUS_LABELS, FAILURE_STATUSES, type CheckStatus } from '../../lib/crossings/inspection-statuses';
 import { ApiError, api, uploadPhoto } from '../../lib/client/api';
+import { crossingStyleName } from '../../lib/schemas/crossing';
 import type { CheckView, RoundView } from '../../lib/schemas/inspection';
 import { withQueryClient } from '../QueryRoot';
 
 type Props = { propertyId: number; initialRound: RoundView; canRecord: boolean; canManage: boolean; userId: number };
-
-const STYLE_NAMES: Record<string, string> = { 'continuous-floodgate': 'Continuous swinging floodgate', 'drop-down-section': 'Separate drop-down section' };
 
 /** One inspection round, made for a phone in the paddock: the crossings in order, what to look at, large status buttons, a note and photos. */
 function RoundPage({ propertyId, initialRound, canRecord, canManage, userId }: Props) {
@@ -123,7 +122,7 @@ function CheckCard({ propertyId, roundId, check, editable, canRemovePhoto, onCha
         {check.position}. {check.crossingLabel}
       </h3>
       <p className="text-sm text-bark-700">
-        {check.style ? STYLE_NAMES[check.style] ?? check.style : 'No design yet'}
+        {check.style ? crossingStyleName(check.style) : 'No design yet'}
         {check.catchmentHa !== null ? ` · catchment ${check.catchmentHa.toFixed(check.catchmentHa < 10 ? 1 : 0)} ha` : ''}
         {check.lonLat ? ` · ${check.lonLat[1].toFixed(5)}, ${check.lonLat[0].toFixed(5)}` : ''}
       </p>

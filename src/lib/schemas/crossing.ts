@@ -1,6 +1,13 @@
 import { z } from 'zod';
 
 export const CROSSING_STYLES = ['continuous-floodgate', 'drop-down-section'] as const;
+/** Each crossing style's name wherever a person reads it (pages, e-mails, sheets). */
+export const CROSSING_STYLE_NAMES: Record<(typeof CROSSING_STYLES)[number], string> = {
+  'continuous-floodgate': 'Continuous swinging floodgate',
+  'drop-down-section': 'Separate drop-down section',
+};
+/** The name of a stored style, or the style itself when it is one this build does not know. */
+export const crossingStyleName = (style: string): string => CROSSING_STYLE_NAMES[style as (typeof CROSSING_STYLES)[number]] ?? style;
 export const TC_METHODS = ['bransby-williams', 'pilgrim-mcdermott', 'kirpich'] as const;
 /** How much timber and grass a flood is expected to carry down to the crossing. */
 export const DEBRIS_LEVELS = ['light', 'moderate', 'heavy'] as const;

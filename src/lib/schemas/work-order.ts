@@ -2,6 +2,7 @@ import type { FeatureCollection } from 'geojson';
 import { z } from 'zod';
 import { emailSchema } from './account';
 import type { FenceStatus } from './plan';
+import { CROSSING_STYLE_NAMES } from './crossing';
 
 export const WORK_ORDER_STATUSES = ['draft', 'sent', 'done', 'cancelled'] as const;
 export type WorkOrderStatus = (typeof WORK_ORDER_STATUSES)[number];
@@ -134,11 +135,11 @@ export type WorkOrder = {
 /** What a crew builds for each crossing style, in the words the order's e-mail and pages use. */
 export const CROSSING_STYLE_WORDS: Record<string, { name: string; build: string }> = {
   'continuous-floodgate': {
-    name: 'Continuous swinging floodgate',
+    name: CROSSING_STYLE_NAMES['continuous-floodgate'],
     build: 'The fence wires run unbroken through the crossing; the floodgate swings up on hung droppers, held down at its lowest post by a breakaway tie. End strainers stand on dry ground with long flex runs either side.',
   },
   'drop-down-section': {
-    name: 'Separate drop-down section',
+    name: CROSSING_STYLE_NAMES['drop-down-section'],
     build: 'Not a continuous floodgate: the fence is terminated at an end strainer on each bank, and a separate section hangs between them, held by breakaway ties so it drops away in a flood and is re-hung after. The end assemblies carry the fence strain on their own.',
   },
 };
