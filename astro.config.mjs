@@ -26,5 +26,11 @@ export default defineConfig({
   vite: {
     plugins: [tailwindcss()],
     ssr: { external: ['better-sqlite3', '@node-rs/argon2', 'knex'] },
+    build: {
+      rollupOptions: {
+        // MapLibre in a chunk of its own: cached apart from the app's code, which changes more often.
+        output: { manualChunks: (id) => (id.includes('/node_modules/maplibre-gl/') ? 'maplibre-gl' : undefined) },
+      },
+    },
   },
 });

@@ -19,7 +19,7 @@ import {
   crossingRingLayer,
   fenceCasingLayer,
   fenceLabelLayer,
-  fenceStatusLayers,
+  fenceLineLayer,
   floodgateBandLayer,
   layoutLabelLayer,
   layoutMarkerLayer,
@@ -127,9 +127,7 @@ export default function PlanOverlay({ fenceLines, crossings, selectedCrossingId,
     <>
       <Source id={FENCE_LINES_SOURCE_ID} type="geojson" data={fenceData}>
         <Layer {...fenceCasingLayer} />
-        {fenceStatusLayers.map((layer) => (
-          <Layer key={layer.id} {...layer} />
-        ))}
+        <Layer {...fenceLineLayer} />
         <Layer {...fenceLabelLayer} />
       </Source>
       <Source id={REALIGN_SOURCE_ID} type="geojson" data={realignData}>

@@ -1,5 +1,6 @@
 import 'maplibre-gl/dist/maplibre-gl.css';
 import { createContext, useEffect, useId, useMemo, useRef, useState, type ReactNode } from 'react';
+import maplibregl from 'maplibre-gl';
 import Map, { Layer, NavigationControl, ScaleControl, Source, useMap, type MapRef } from 'react-map-gl/maplibre';
 import type { LngLatBoundsLike, MapGeoJSONFeature, Map as MaplibreMap, MapMouseEvent } from 'maplibre-gl';
 import { createExtentFeatures, toUsableExtent } from './extent';
@@ -139,6 +140,9 @@ export default function PropertyMap({ propertyName, extentWgs84, children, inter
     >
       <Map
         ref={mapRef}
+        // Imported with this module rather than on first render (react-map-gl's default): the
+        // browser then fetches MapLibre alongside the workspace's own code, not after it.
+        mapLib={maplibregl}
         mapStyle={mapStyle}
         initialViewState={initialViewState}
         onLoad={() => setLoaded(true)}

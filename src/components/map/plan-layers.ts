@@ -12,7 +12,7 @@ export {
   LAYOUT_VIEW_ZOOM,
   PLAN_COLOURS,
 } from './plan-style';
-export { fenceCasingLayer, fenceLabelLayer, fenceStatusLayers, realignCasingLayer, realignLineLayer } from './fence-layers';
+export { fenceCasingLayer, fenceLabelLayer, fenceLineLayer, realignCasingLayer, realignLineLayer } from './fence-layers';
 export {
   CROSSING_INTERACTIVE_LAYER_IDS,
   crossingDotLayer,

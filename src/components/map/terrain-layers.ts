@@ -111,7 +111,9 @@ export function drainageLineLayer(runId: number): LineLayer {
     source: drainageSourceId(runId),
     'source-layer': DRAINAGE_TILE_LAYER,
     filter: shownAtThisZoom,
-    layout: { 'line-join': 'round', 'line-cap': 'round' },
+    // Mitred and butt-ended at station scale: round joins and caps are extra triangles at every
+    // vertex of thousands of lines, drawn in software on many machines; round from close up.
+    layout: { 'line-join': ['step', ['zoom'], 'miter', 13, 'round'], 'line-cap': ['step', ['zoom'], 'butt', 13, 'round'] },
     paint: { 'line-color': TERRAIN_COLOURS.drainage, 'line-width': widthByOrder(1.2) },
   };
 }

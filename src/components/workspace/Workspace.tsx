@@ -10,7 +10,7 @@ import TerrainOverlay, { type TerrainRunLayer, type TerrainVisibility } from '..
 import { withQueryClient } from '../QueryRoot';
 import CrossingDetail, { crossingDetailQuery, type RealignmentPreview } from './CrossingDetail';
 import CrossingsPanel from './CrossingsPanel';
-import { LAYOUT_MIN_ZOOM, LAYOUT_VIEW_ZOOM, fenceStatusLayers } from '../map/plan-layers';
+import { LAYOUT_MIN_ZOOM, LAYOUT_VIEW_ZOOM, fenceLineLayer } from '../map/plan-layers';
 import TracksOverlay from '../map/TracksOverlay';
 import { EditPanel } from './editing/EditPanel';
 import { EditToolbar } from './editing/EditToolbar';
@@ -35,7 +35,7 @@ type Props = {
   children?: ReactNode;
 };
 
-const FENCE_LAYER_IDS = fenceStatusLayers.map((layer) => layer.id);
+const FENCE_LAYER_IDS = [fenceLineLayer.id];
 const MAP_PICKABLE_LAYER_IDS = [...CROSSING_INTERACTIVE_LAYER_IDS, ...FENCE_LAYER_IDS];
 
 /** After a terrain run, crossings are analysed again for up to this long; the list polls meanwhile. */
@@ -204,11 +204,14 @@ function Workspace({ propertyId, propertyName, extentWgs84, canEdit, children }:
   const showKey = runs.length > 0 || fenceStatuses.length > 0 || crossingList.length > 0 || showTracks || showPaddocks;
   const editing = editor.task !== null;
 
-  // The map takes the first plan in one go: each source arriving on its own costs a full redraw,
-  // seconds on a big station where WebGL is drawn in software. After that, changes go straight in.
+  // The map takes the first plan in one go: each source arriving on its own (or mounted empty and
+  // filled later) costs a full redraw, a third of a second on a big station where WebGL is drawn in
+  // software. So the overlays mount once every first answer is in (the page preloads them), all in
+  // one commit and in their drawing order; after that, changes go straight in.
   const planArrived = useRef(false);
-  if ([models, fenceLines, crossings, tracks, paddocks].every((query) => !query.isPending)) planArrived.current = true;
-  const onMap = <T,>(data: T | undefined): T | null => (planArrived.current ? (data ?? null) : null);
+  // (The crossings wait for the models, so with the models refused they never start.)
+  const firstReadsIn = [models, fenceLines, tracks, paddocks].every((query) => !query.isPending) && !(models.isSuccess && crossings.isPending);
+  if (firstReadsIn) planArrived.current = true;
 
   return (
     // On a phone the panels are a sheet under the map; side by side each keeps its own height.
@@ -222,17 +225,20 @@ function Workspace({ propertyId, propertyName, extentWgs84, canEdit, children }:
           onFeatureClick={editing ? undefined : onFeatureClick}
           groundHeightAt={runs.length > 0 ? groundHeightAt : undefined}
         >
-          {/* The terrain goes on as soon as the runs are known: its tiles and image load while the plan is still on its way. */}
-          <TerrainOverlay propertyId={propertyId} runs={runs} visible={visible} underExtent={extent !== null} />
-          <TracksOverlay tracks={onMap(tracks.data)} paddocks={onMap(paddocks.data)} visible={planVisible} />
-          <PlanOverlay
-            fenceLines={onMap(fenceLines.data)}
-            crossings={onMap(crossings.data)}
-            selectedCrossingId={selectedId}
-            layoutPoints={layoutPoints}
-            realignment={realignment}
-            focus={focus}
-          />
+          {planArrived.current && (
+            <>
+              <TerrainOverlay propertyId={propertyId} runs={runs} visible={visible} underExtent={extent !== null} />
+              <TracksOverlay tracks={tracks.data ?? null} paddocks={paddocks.data ?? null} visible={planVisible} />
+              <PlanOverlay
+                fenceLines={fenceLines.data ?? null}
+                crossings={crossings.data ?? null}
+                selectedCrossingId={selectedId}
+                layoutPoints={layoutPoints}
+                realignment={realignment}
+                focus={focus}
+              />
+            </>
+          )}
           {canEdit && <PlanDrawing snapTargets={snapTargets} {...editor.drawingProps} />}
         </PropertyMap>
         {canEdit && <EditToolbar editor={editor} />}

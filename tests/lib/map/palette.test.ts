@@ -4,7 +4,7 @@ import { simulate, type Deficiency } from '@bjornlu/colorblind';
 import { converter, differenceCiede2000, formatHex, interpolate, wcagContrast } from 'culori';
 import { describe, expect, it } from 'vitest';
 import { crossingDotLayer, crossingRedesignLayer, crossingRingLayer } from '../../../src/components/map/crossing-layers';
-import { fenceCasingLayer, fenceStatusLayers, realignCasingLayer, realignLineLayer } from '../../../src/components/map/fence-layers';
+import { fenceCasingLayer, fenceStatusPaint, realignCasingLayer, realignLineLayer } from '../../../src/components/map/fence-layers';
 import { propertyExtentFill } from '../../../src/components/map/layers';
 import { LAYOUT_ICON_COLOURS, layoutMarkerLayer, layoutPostLayer } from '../../../src/components/map/layout-layers';
 import { FENCE_STATUS_STYLES, PLAN_COLOURS } from '../../../src/components/map/plan-style';
@@ -82,7 +82,7 @@ function outputsOf(value: unknown): unknown[] {
   return [value];
 }
 const numbersOf = (value: unknown) => outputsOf(value).filter((output): output is number => typeof output === 'number');
-const statusLayer = (status: FenceStatus) => fenceStatusLayers.find((layer) => layer.id === `plan-fence-${status}`)!;
+const statusLayer = (status: FenceStatus) => ({ paint: fenceStatusPaint(status) });
 const filterText = (layer: { filter?: unknown }) => JSON.stringify(layer.filter ?? null);
 
 // ---- backgrounds ------------------------------------------------------------------------
