@@ -158,6 +158,9 @@ describe('the history of saved changes', () => {
     expect(nextStep(renamed, 'undo')!.request).toEqual({ target: 'paddock', action: 'update', id: 3, changes: { name: 'Creek flat' }, version: 2 });
     const redrawn = recordSave(emptyHistory(), { what: 'paddock-changed', before: paddock(3, 1), after: paddock(3, 2, { rings: [square.slice().reverse()] }) });
     expect(redrawn.undo[0]!.label).toBe('new boundary of paddock Creek flat');
+    // A boundary saved over someone else's rename leaves their name alone.
+    const reshaped = recordSave(emptyHistory(), { what: 'paddock-reshaped', before: paddock(3, 1), after: paddock(3, 3, { name: 'Their name', rings: [square.slice().reverse()] }) });
+    expect(nextStep(reshaped, 'undo')!.request).toEqual({ target: 'paddock', action: 'update', id: 3, changes: { rings: [square] }, version: 3 });
     const realigned = recordSave(emptyHistory(), { what: 'fence-realigned', before: fence(7, 1), after: fence(7, 2, { coordinates: bent }) });
     expect(realigned.undo[0]!.label).toBe('square crossing on North boundary');
     expect(recordSave(emptyHistory(), { what: 'fence-created', fence: fence(7, 1), fromTrack: true }).undo[0]!.label).toBe('fence line North boundary made from a track');

@@ -12,7 +12,7 @@ export type SavedChange =
   | { what: 'fence-reshaped' | 'fence-realigned' | 'fence-details'; before: FenceLine; after: FenceLine }
   | { what: 'fence-deleted'; fence: FenceLine }
   | { what: 'paddock-created'; paddock: Paddock }
-  | { what: 'paddock-changed'; before: Paddock; after: Paddock }
+  | { what: 'paddock-reshaped' | 'paddock-changed'; before: Paddock; after: Paddock }
   | { what: 'paddock-deleted'; paddock: Paddock };
 
 /** Created and deleted keep the whole object (to delete it again or make it anew); changed keeps only the fields that changed. */
@@ -47,9 +47,12 @@ const keyOf = (target: 'fence' | 'paddock', id: number) => `${target}:${id}`;
 const fenceFields = (f: FenceLine): FenceFields => ({ name: f.name, status: f.status, coordinates: f.coordinates, wireSpec: f.wireSpec });
 const paddockFields = (p: Paddock): PaddockFields => ({ name: p.name, rings: p.rings });
 
-/** The fields of `after` that differ from `before`, and their old values. */
-function diff<F extends object>(before: F, after: F): { before: Partial<F>; after: Partial<F> } {
-  const keys = (Object.keys(after) as (keyof F)[]).filter((key) => JSON.stringify(before[key]) !== JSON.stringify(after[key]));
+/**
+ * The fields among `among` that differ between `before` and `after`, with both values. Only the
+ * fields the save was about: a shape saved over someone else's rename does not undo their rename.
+ */
+function diff<F extends object>(before: F, after: F, among: (keyof F)[]): { before: Partial<F>; after: Partial<F> } {
+  const keys = among.filter((key) => JSON.stringify(before[key]) !== JSON.stringify(after[key]));
   return { before: Object.fromEntries(keys.map((k) => [k, before[k]])) as Partial<F>, after: Object.fromEntries(keys.map((k) => [k, after[k]])) as Partial<F> };
 }
 
@@ -68,15 +71,17 @@ function recordOf(change: SavedChange): { record: SavedRecord; version: number |
     case 'fence-details': {
       const { before, after } = change;
       const label = { 'fence-reshaped': `new shape of ${after.name}`, 'fence-realigned': `square crossing on ${after.name}`, 'fence-details': `details of ${after.name}` }[change.what];
-      return { record: { target: 'fence', id: after.id, name: after.name, label, step: { kind: 'changed', ...diff(fenceFields(before), fenceFields(after)) } }, version: after.version };
+      const among: (keyof FenceFields)[] = change.what === 'fence-details' ? ['name', 'status', 'wireSpec'] : ['coordinates'];
+      return { record: { target: 'fence', id: after.id, name: after.name, label, step: { kind: 'changed', ...diff(fenceFields(before), fenceFields(after), among) } }, version: after.version };
     }
     case 'paddock-created':
       return { record: { target: 'paddock', id: change.paddock.id, name: change.paddock.name, label: `new paddock ${change.paddock.name}`, step: { kind: 'created', fields: paddockFields(change.paddock) } }, version: change.paddock.version };
     case 'paddock-deleted':
       return { record: { target: 'paddock', id: change.paddock.id, name: change.paddock.name, label: `removal of paddock ${change.paddock.name}`, step: { kind: 'deleted', fields: paddockFields(change.paddock) } }, version: null };
+    case 'paddock-reshaped':
     case 'paddock-changed': {
       const { before, after } = change;
-      const step = diff(paddockFields(before), paddockFields(after));
+      const step = diff(paddockFields(before), paddockFields(after), change.what === 'paddock-reshaped' ? ['rings'] : ['name', 'rings']);
       const what = step.after.rings && step.after.name !== undefined ? 'new boundary and name' : step.after.rings ? 'new boundary' : 'new name';
       return { record: { target: 'paddock', id: after.id, name: after.name, label: `${what} of paddock ${after.name}`, step: { kind: 'changed', ...step } }, version: after.version };
     }
@@ -119,8 +124,8 @@ export function requestFor(history: SavedHistory, record: SavedRecord, direction
   }
   if (!makesAnew(record, direction)) return { target: record.target, action: 'delete', id: record.id, version };
   return record.target === 'fence'
-    ? { target: 'fence', action: 'create', fields: record.step.fields as FenceFields }
-    : { target: 'paddock', action: 'create', fields: record.step.fields as PaddockFields };
+    ? { target: 'fence', action: 'create', fields: step.fields as FenceFields }
+    : { target: 'paddock', action: 'create', fields: step.fields as PaddockFields };
 }
 
 /** The next undo (or redo) and its request; null when that side is empty. */
