@@ -31,15 +31,19 @@ export function EditToolbar({ editor, saved }: Props) {
       data-testid="edit-toolbar"
     >
       {!task ? (
-        <div className="flex flex-row flex-wrap gap-2">
-          <button type="button" className="btn-primary min-h-11" onClick={() => editor.startDrawing('fence')} data-testid="draw-fence" aria-keyshortcuts="F">
-            Draw fence
-          </button>
-          <button type="button" className="btn-quiet min-h-11" onClick={() => editor.startDrawing('paddock')} data-testid="draw-paddock" aria-keyshortcuts="P">
-            Draw paddock
-          </button>
-          <SavedStepButton direction="undo" label={saved.undoLabel} busy={saved.busy} onClick={saved.undo} />
-          <SavedStepButton direction="redo" label={saved.redoLabel} busy={saved.busy} onClick={saved.redo} />
+        <div className="flex flex-row flex-wrap gap-2 md:justify-end">
+          <div className="flex flex-row gap-2">
+            <button type="button" className="btn-primary min-h-11" onClick={() => editor.startDrawing('fence')} data-testid="draw-fence" aria-keyshortcuts="F">
+              Draw fence
+            </button>
+            <button type="button" className="btn-quiet min-h-11" onClick={() => editor.startDrawing('paddock')} data-testid="draw-paddock" aria-keyshortcuts="P">
+              Draw paddock
+            </button>
+          </div>
+          <div className="flex flex-row gap-2">
+            <SavedStepButton direction="undo" label={saved.undoLabel} busy={saved.busy} onClick={saved.undo} />
+            <SavedStepButton direction="redo" label={saved.redoLabel} busy={saved.busy} onClick={saved.redo} />
+          </div>
         </div>
       ) : (
         <>
