@@ -1,6 +1,7 @@
 // Undo and redo of a saved change in the workspace, as a manager would: a fence line drawn across
 // the demo's main creek and saved, taken back with Undo (gone from the list and from the map's
-// data), and brought back with Ctrl+Shift+Z, crossing and all.
+// data), brought back with Ctrl+Shift+Z, crossing and all; then an undo someone else's change has
+// overtaken is refused and taken off the list.
 import type { Browser, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { launchBrowser, openDemoWorkspace, screenshot, seedDemoIntoTestServer } from '../helpers/browser';
@@ -94,6 +95,23 @@ describe('undo and redo of saved changes', () => {
     expect(await undo.getAttribute('aria-label')).toBe(`Undo: new fence line ${NAME}`);
     expect(await redo.isDisabled()).toBe(true);
     await screenshot(page, 'undo-saved-redone');
+
+    // Someone else renames the line: the undo is refused, said so, taken off, and nothing is deleted.
+    await page.evaluate(
+      async ({ id, name }) => {
+        const { fenceLines } = (await (await fetch(`/api/properties/${id}/fence-lines`)).json()) as { fenceLines: { id: number; name: string; version: number }[] };
+        const fence = fenceLines.find((f) => f.name === name)!;
+        await fetch(`/api/properties/${id}/fence-lines/${fence.id}`, { method: 'PATCH', headers: { 'Content-Type': 'application/json' }, body: JSON.stringify({ name: 'Renamed by the owner meanwhile', version: fence.version }) });
+      },
+      { id: propertyId, name: NAME },
+    );
+    await undo.click();
+    await expect.poll(() => notice.textContent(), { timeout: 30_000 }).toBe(
+      `Could not undo the new fence line ${NAME}: someone else has changed ${NAME} since. Nothing was changed; the plan now shows what is saved, and that step was taken off the list.`,
+    );
+    await page.getByTestId('fence-row').filter({ hasText: 'Renamed by the owner meanwhile' }).waitFor();
+    expect(await undo.isDisabled()).toBe(true);
+    await screenshot(page, 'undo-saved-refused');
     expect(outsideRequests).toEqual([]);
     await close();
   }, 240_000);

@@ -138,7 +138,7 @@ describe('the history of saved changes', () => {
     expect(history.undo.map((r) => r.label)).toEqual(['new paddock Creek flat']);
     expect(history.redo).toEqual([]);
     expect(refusedMessage(refused, 'undo', 'changed')).toBe(
-      'Could not undo the new shape of North boundary: someone else changed North boundary after it. Nothing was changed, and the plan now shows what is saved; that step was taken off the list.',
+      'Could not undo the new shape of North boundary: someone else has changed North boundary since. Nothing was changed; the plan now shows what is saved, and that step was taken off the list.',
     );
     expect(refusedMessage(refused, 'redo', 'gone')).toMatch(/^Could not redo the new shape of North boundary: North boundary is no longer there\. Nothing was changed/);
   });

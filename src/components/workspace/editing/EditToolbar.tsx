@@ -31,7 +31,7 @@ export function EditToolbar({ editor, saved }: Props) {
       data-testid="edit-toolbar"
     >
       {!task ? (
-        <div className="flex flex-row flex-wrap gap-2 md:justify-end">
+        <div className="flex flex-col gap-2 md:items-end">
           <div className="flex flex-row gap-2">
             <button type="button" className="btn-primary min-h-11" onClick={() => editor.startDrawing('fence')} data-testid="draw-fence" aria-keyshortcuts="F">
               Draw fence

@@ -177,6 +177,6 @@ export function doneMessage(record: SavedRecord, direction: 'undo' | 'redo'): st
 
 /** The sentence shown when an undo or redo was refused: what, why, and that nothing was changed. */
 export function refusedMessage(record: SavedRecord, direction: 'undo' | 'redo', reason: 'changed' | 'gone'): string {
-  const why = reason === 'changed' ? `someone else changed ${record.name} after it` : `${record.name} is no longer there`;
-  return `Could not ${direction} the ${record.label}: ${why}. Nothing was changed, and the plan now shows what is saved; that step was taken off the list.`;
+  const why = reason === 'changed' ? `someone else has changed ${record.name} since` : `${record.name} is no longer there`;
+  return `Could not ${direction} the ${record.label}: ${why}. Nothing was changed; the plan now shows what is saved, and that step was taken off the list.`;
 }
