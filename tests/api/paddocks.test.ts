@@ -72,6 +72,23 @@ describe('paddocks', () => {
     expect(audit.body.entries.slice(0, 4).map((e) => e.action)).toEqual(['paddock.delete', 'paddock.update', 'paddock.update', 'paddock.create']);
   });
 
+  it('deletes a paddock only at the version read when one is given: stale 409 keeps it, the right one 204', async () => {
+    const { body } = await manager.json<{ paddock: Paddock }>('POST', `${base()}/paddocks`, { name: 'Careful flat', rings: [[sw, se, ne, nw]] });
+    const id = body.paddock.id;
+    await manager.json('PATCH', `${base()}/paddocks/${id}`, { name: 'Careful flat 2', version: 1 });
+
+    const before = await rowCounts('paddocks', 'audit_log');
+    const stale = await manager.json<{ error: string }>('DELETE', `${base()}/paddocks/${id}?version=1`);
+    expect(stale.status).toBe(409);
+    expect(stale.body.error).toBe('Someone changed "Careful flat 2" since you opened it (now version 2). Reload it to see their change, then delete it if you still mean to.');
+    expect((await manager.json<{ fields: Record<string, string> }>('DELETE', `${base()}/paddocks/${id}?version=0`)).status).toBe(422);
+    expect(await rowCounts('paddocks', 'audit_log')).toEqual(before);
+    expect((await manager.json<{ paddock: Paddock }>('GET', `${base()}/paddocks/${id}`)).body.paddock).toMatchObject({ name: 'Careful flat 2', version: 2 });
+
+    expect((await manager.request('DELETE', `${base()}/paddocks/${id}?version=2`)).status).toBe(204);
+    expect((await manager.json('GET', `${base()}/paddocks/${id}`)).status).toBe(404);
+  });
+
   const bowTie = [sw, se, nw, ne];
   it.each([
     ['two corners', { name: 'X', rings: [[sw, se]] }, 'rings.0', /at least three corners/],

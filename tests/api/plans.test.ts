@@ -38,6 +38,28 @@ describe('fence lines', () => {
     expect(now.body.fenceLine.name).toBe('Test line');
   });
 
+  it('deletes a fence line only at the version read when one is given: stale 409 keeps it, the right one 204', async () => {
+    const created = await manager.json<{ fenceLine: FenceLine }>('POST', `/api/properties/${propertyId}/fence-lines`, {
+      name: 'Deleted with care',
+      coordinates: [[141.64, -31.45], [141.65, -31.45]],
+    });
+    const id = created.body.fenceLine.id;
+    await manager.json('PATCH', `/api/properties/${propertyId}/fence-lines/${id}`, { status: 'approved', version: 1 });
+
+    const before = await rowCounts('fence_lines', 'audit_log');
+    const stale = await manager.json<{ error: string }>('DELETE', `/api/properties/${propertyId}/fence-lines/${id}?version=1`);
+    expect(stale.status).toBe(409);
+    expect(stale.body.error).toBe('Someone changed "Deleted with care" since you opened it (now version 2). Reload it to see their change, then delete it if you still mean to.');
+    const bad = await manager.json<{ fields: Record<string, string> }>('DELETE', `/api/properties/${propertyId}/fence-lines/${id}?version=two`);
+    expect(bad.status).toBe(422);
+    expect(bad.body.fields.version).toMatch(/whole number/);
+    expect(await rowCounts('fence_lines', 'audit_log')).toEqual(before);
+    expect((await manager.json<{ fenceLine: FenceLine }>('GET', `/api/properties/${propertyId}/fence-lines/${id}`)).body.fenceLine).toMatchObject({ name: 'Deleted with care', version: 2 });
+
+    expect((await manager.request('DELETE', `/api/properties/${propertyId}/fence-lines/${id}?version=2`)).status).toBe(204);
+    expect((await manager.json('GET', `/api/properties/${propertyId}/fence-lines/${id}`)).status).toBe(404);
+  });
+
   it.each([
     ['one point', { name: 'X', coordinates: [[141.64, -31.44]] }, 'coordinates', /at least two points/],
     ['a latitude out of range', { name: 'X', coordinates: [[141.64, -95], [141.65, -31.44]] }, 'coordinates.0.1', /Latitudes lie between/],

@@ -20,6 +20,8 @@ import PlanDrawing from './editing/PlanDrawing';
 import { ShortcutsHelp, useWorkspaceShortcuts } from './editing/shortcuts';
 import { TracksPanel } from './editing/TracksPanel';
 import { usePlanEditor } from './editing/use-plan-editor';
+import { useSavedHistory } from './editing/use-saved-history';
+import type { SavedChange } from './editing/saved-history';
 import { ExportPanel } from './ExportPanel';
 import { FenceLinesSummary } from './FenceLinesSummary';
 import LayerToggles, { type PlanVisibility } from './LayerToggles';
@@ -99,9 +101,24 @@ function Workspace({ propertyId, propertyName, extentWgs84, canEdit, children }:
     (lon: number, lat: number) => api.elevationAt(propertyId, [lon, lat]).then((answer) => answer.elevationM),
     [propertyId],
   );
+  // Saved changes, undone and redone from the edit toolbar; what happened shows in the notice.
+  const saved = useSavedHistory({
+    propertyId,
+    onMessage: (message) => {
+      setSelectedId(null);
+      setRealignment(null);
+      setNotice(message);
+    },
+  });
+  const { record } = saved;
+  const recordSaved = (change: SavedChange, message: string) => {
+    record(change);
+    setNotice(message);
+  };
   const editor = usePlanEditor({
     propertyId,
-    onSaved: ({ fenceLine, message }) => {
+    onSaved: ({ fenceLine, change, message }) => {
+      saved.record(change);
       setNotice(message);
       if (fenceLine) {
         setSelectedId(null);
@@ -112,7 +129,7 @@ function Workspace({ propertyId, propertyName, extentWgs84, canEdit, children }:
   const [showHelp, setShowHelp] = useState(false);
   // With no terrain yet, the first thing to do is upload an elevation model.
   const [section, setSection] = useState<SheetSection>(() => (extentWgs84 ? 'crossings' : 'terrain'));
-  useWorkspaceShortcuts({ editor, canEdit, onHelp: () => setShowHelp((shown) => !shown) });
+  useWorkspaceShortcuts({ editor, saved, canEdit, onHelp: () => setShowHelp((shown) => !shown) });
   // Fences join end to end and follow walked tracks: both are snap targets while drawing.
   const snapTargets = useMemo(
     () => ({
@@ -160,6 +177,8 @@ function Workspace({ propertyId, propertyName, extentWgs84, canEdit, children }:
   const onRealigned = useCallback(
     async (fenceLine: FenceLine) => {
       const before = selected;
+      const fenceBefore = fenceLines.data?.find((fence) => fence.id === fenceLine.id);
+      if (fenceBefore) record({ what: 'fence-realigned', before: fenceBefore, after: fenceLine });
       await queryClient.invalidateQueries({ queryKey: ['fence-lines', propertyId] });
       const refreshed = await crossings.refetch();
       // The crossing is found again on the new line; keep it selected (nearest along the same drainage line).
@@ -174,7 +193,7 @@ function Workspace({ propertyId, propertyName, extentWgs84, canEdit, children }:
           : `${fenceLine.name} has its new shape; its crossings were found and designed again.`,
       );
     },
-    [crossings, propertyId, queryClient, selected],
+    [crossings, fenceLines.data, propertyId, queryClient, record, selected],
   );
 
   const runs = useMemo<TerrainRunLayer[]>(
@@ -241,7 +260,7 @@ function Workspace({ propertyId, propertyName, extentWgs84, canEdit, children }:
           )}
           {canEdit && <PlanDrawing snapTargets={snapTargets} {...editor.drawingProps} />}
         </PropertyMap>
-        {canEdit && <EditToolbar editor={editor} />}
+        {canEdit && <EditToolbar editor={editor} saved={saved} />}
         <button
           type="button"
           className="absolute right-2.5 top-[6.5rem] z-10 flex h-8 w-8 items-center justify-center rounded-md border border-sand-300 bg-white font-bold text-bark-900 shadow-sm"
@@ -292,6 +311,7 @@ function Workspace({ propertyId, propertyName, extentWgs84, canEdit, children }:
                 onReshape={() => editor.startReshape({ fence: selectedFence })}
                 onClose={() => setSelectedFenceId(null)}
                 onSelectCrossing={(id) => select(id, 'list')}
+                onSaved={recordSaved}
               />
             )}
             {selected && (
@@ -350,6 +370,7 @@ function Workspace({ propertyId, propertyName, extentWgs84, canEdit, children }:
                 canEdit={canEdit}
                 hasFences={(fenceLines.data ?? []).length > 0}
                 onReshape={(paddock) => editor.startReshape({ paddock })}
+                onSaved={recordSaved}
               />
             </>
           ),
@@ -363,6 +384,7 @@ function Workspace({ propertyId, propertyName, extentWgs84, canEdit, children }:
                 loading={tracks.isPending}
                 canEdit={canEdit}
                 onFenceMade={(fenceLine) => {
+                  saved.record({ what: 'fence-created', fence: fenceLine, fromTrack: true });
                   setSelectedFenceId(fenceLine.id);
                   setSection('plan');
                 }}

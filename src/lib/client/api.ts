@@ -83,8 +83,9 @@ export const api = {
     request<{ fenceLine: FenceLine }>('PATCH', `/api/properties/${propertyId}/fence-lines/${fenceLineId}`, changes),
   getFenceLine: (propertyId: number, fenceLineId: number) =>
     request<{ fenceLine: FenceLine }>('GET', `/api/properties/${propertyId}/fence-lines/${fenceLineId}`),
-  deleteFenceLine: (propertyId: number, fenceLineId: number) =>
-    request<void>('DELETE', `/api/properties/${propertyId}/fence-lines/${fenceLineId}`),
+  /** Deletes a fence line; with `version` (the one read) a 409 ApiError when someone changed it meanwhile. */
+  deleteFenceLine: (propertyId: number, fenceLineId: number, version?: number) =>
+    request<void>('DELETE', `/api/properties/${propertyId}/fence-lines/${fenceLineId}${version === undefined ? '' : `?version=${version}`}`),
   listTracks: (propertyId: number) => request<{ tracks: Track[] }>('GET', `/api/properties/${propertyId}/tracks`),
   /** Sends a GPX or KML file: its lines become tracks, its polygons paddocks. */
   importTrackFile: (propertyId: number, file: File) =>
@@ -111,8 +112,9 @@ export const api = {
   /** `version` is the paddock's version as read; a stale one is refused with 409. */
   updatePaddock: (propertyId: number, paddockId: number, changes: { name?: string; rings?: [number, number][][]; version: number }) =>
     request<{ paddock: Paddock }>('PATCH', `/api/properties/${propertyId}/paddocks/${paddockId}`, changes),
-  deletePaddock: (propertyId: number, paddockId: number) =>
-    request<void>('DELETE', `/api/properties/${propertyId}/paddocks/${paddockId}`),
+  /** Deletes a paddock; with `version` (the one read) a 409 ApiError when someone changed it meanwhile. */
+  deletePaddock: (propertyId: number, paddockId: number, version?: number) =>
+    request<void>('DELETE', `/api/properties/${propertyId}/paddocks/${paddockId}${version === undefined ? '' : `?version=${version}`}`),
   /** Makes paddocks of the areas the fence lines close off (by default every fence line not retired). */
   paddocksFromFences: (propertyId: number, fenceLineIds?: number[]) =>
     request<PaddocksFromFencesResult>('POST', `/api/properties/${propertyId}/paddocks/from-fences`, fenceLineIds ? { fenceLineIds } : {}),

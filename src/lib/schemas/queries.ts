@@ -28,3 +28,18 @@ export const elevationQuerySchema = z.object({ lon: degrees('lon', 180), lat: de
 
 /** Ground height at a point and the elevation model it came from (all null off every model). */
 export type ElevationAtPoint = { elevationM: number | null; modelId: number | null; cellSizeM: number | null };
+
+/**
+ * `?version=` on a DELETE: the version the caller read, so a deletion made on stale data is
+ * refused (409). Left out, the deletion goes ahead whatever the version.
+ */
+export const deleteVersionQuerySchema = z.object({
+  version: z.preprocess(
+    (value) => (value === undefined ? undefined : value === '' ? Number.NaN : Number(value)),
+    z
+      .number({ invalid_type_error: 'Give version as a whole number: the version you read.' })
+      .int('Give version as a whole number: the version you read.')
+      .positive('Give version as a whole number: the version you read.')
+      .optional(),
+  ),
+});

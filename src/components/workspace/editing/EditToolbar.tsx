@@ -1,7 +1,8 @@
 import type { PlanEditor } from './use-plan-editor';
+import type { SavedHistoryControls } from './use-saved-history';
 import { formatMeasures } from './format-measure';
 
-type Props = { editor: PlanEditor };
+type Props = { editor: PlanEditor; saved: SavedHistoryControls };
 
 const HINTS = {
   fence: 'Click to add points; click the last point again or press Enter to finish. Points snap to fence ends and tracks.',
@@ -12,9 +13,10 @@ const HINTS = {
 
 /**
  * The editing strip over the map: start drawing a fence line or a paddock, then the hint, the live
- * length or area, undo/redo and finish/cancel for the shape under way. Shown only to editors.
+ * length or area, undo/redo and finish/cancel for the shape under way. With no drawing under way,
+ * undo/redo of the saved changes instead. Shown only to editors.
  */
-export function EditToolbar({ editor }: Props) {
+export function EditToolbar({ editor, saved }: Props) {
   const { task, tool, history, measures, controlsRef } = editor;
   const drawing = tool.kind === 'draw';
   const reshaping = tool.kind === 'reshape';
@@ -29,13 +31,19 @@ export function EditToolbar({ editor }: Props) {
       data-testid="edit-toolbar"
     >
       {!task ? (
-        <div className="flex flex-row gap-2">
-          <button type="button" className="btn-primary min-h-11" onClick={() => editor.startDrawing('fence')} data-testid="draw-fence" aria-keyshortcuts="F">
-            Draw fence
-          </button>
-          <button type="button" className="btn-quiet min-h-11" onClick={() => editor.startDrawing('paddock')} data-testid="draw-paddock" aria-keyshortcuts="P">
-            Draw paddock
-          </button>
+        <div className="flex flex-col gap-2 md:items-end">
+          <div className="flex flex-row gap-2">
+            <button type="button" className="btn-primary min-h-11" onClick={() => editor.startDrawing('fence')} data-testid="draw-fence" aria-keyshortcuts="F">
+              Draw fence
+            </button>
+            <button type="button" className="btn-quiet min-h-11" onClick={() => editor.startDrawing('paddock')} data-testid="draw-paddock" aria-keyshortcuts="P">
+              Draw paddock
+            </button>
+          </div>
+          <div className="flex flex-row gap-2">
+            <SavedStepButton direction="undo" label={saved.undoLabel} busy={saved.busy} onClick={saved.undo} />
+            <SavedStepButton direction="redo" label={saved.redoLabel} busy={saved.busy} onClick={saved.redo} />
+          </div>
         </div>
       ) : (
         <>
@@ -81,5 +89,25 @@ export function EditToolbar({ editor }: Props) {
         </>
       )}
     </div>
+  );
+}
+
+/** Undo or redo of the last saved change, titled with what it sends back or again. */
+function SavedStepButton({ direction, label, busy, onClick }: { direction: 'undo' | 'redo'; label: string | null; busy: boolean; onClick: () => void }) {
+  const word = direction === 'undo' ? 'Undo' : 'Redo';
+  const says = label ? `${word}: ${label}` : direction === 'undo' ? 'Nothing saved to undo' : 'Nothing to redo';
+  return (
+    <button
+      type="button"
+      className="btn-quiet min-h-11 px-3"
+      disabled={!label || busy}
+      onClick={onClick}
+      title={says}
+      aria-label={says}
+      aria-keyshortcuts={direction === 'undo' ? 'Control+Z' : 'Control+Shift+Z Control+Y'}
+      data-testid={`saved-${direction}`}
+    >
+      {word}
+    </button>
   );
 }

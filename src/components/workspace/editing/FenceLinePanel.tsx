@@ -6,6 +6,7 @@ import type { FenceLine } from '../../../lib/schemas/plan';
 import { FENCE_STATUS_STYLES } from '../../map/plan-layers';
 import { FenceLineForm, type FenceLineDetails } from './FenceLineForm';
 import { formatLength } from './format-measure';
+import type { SavedChange } from './saved-history';
 
 type Props = {
   propertyId: number;
@@ -15,6 +16,8 @@ type Props = {
   onReshape: () => void;
   onClose: () => void;
   onSelectCrossing: (crossingId: number) => void;
+  /** A change saved here, for the saved history, with a sentence saying so. */
+  onSaved: (change: SavedChange, message: string) => void;
 };
 
 const wireSummary = (fence: FenceLine) => {
@@ -24,24 +27,30 @@ const wireSummary = (fence: FenceLine) => {
 };
 
 /** One fence line: what it is, its crossings, and (for editors) its details, shape and removal. */
-export function FenceLinePanel({ propertyId, fence, crossings, canEdit, onReshape, onClose, onSelectCrossing }: Props) {
+export function FenceLinePanel({ propertyId, fence, crossings, canEdit, onReshape, onClose, onSelectCrossing, onSaved }: Props) {
   const queryClient = useQueryClient();
   const [editing, setEditing] = useState(false);
   const [confirmDelete, setConfirmDelete] = useState(false);
   const refresh = () => Promise.all(['fence-lines', 'crossings', 'costs'].map((key) => queryClient.invalidateQueries({ queryKey: [key, propertyId] })));
 
   const save = useMutation({
-    mutationFn: (details: FenceLineDetails) => api.updateFenceLine(propertyId, fence.id, { ...details, version: fence.version }),
-    onSuccess: async () => {
+    mutationFn: async (details: FenceLineDetails) => ({ before: fence, after: (await api.updateFenceLine(propertyId, fence.id, { ...details, version: fence.version })).fenceLine }),
+    onSuccess: async ({ before, after }) => {
       await refresh();
       setEditing(false);
+      onSaved({ what: 'fence-details', before, after }, `The details of ${after.name} were saved.`);
     },
   });
   const remove = useMutation({
-    mutationFn: () => api.deleteFenceLine(propertyId, fence.id),
-    onSuccess: async () => {
+    // With the version read, so a line someone else changed meanwhile is not deleted unseen.
+    mutationFn: async () => {
+      await api.deleteFenceLine(propertyId, fence.id, fence.version);
+      return fence;
+    },
+    onSuccess: async (deleted) => {
       await refresh();
       onClose();
+      onSaved({ what: 'fence-deleted', fence: deleted }, `${deleted.name} was deleted with its crossings.`);
     },
   });
   const own = crossings.filter((c) => c.fenceLineId === fence.id && c.kind !== 'runs-along').sort((a, b) => a.chainageM - b.chainageM);

@@ -3,6 +3,7 @@ import { useState } from 'react';
 import { api } from '../../../lib/client/api';
 import type { Paddock } from '../../../lib/schemas/paddock';
 import { formatArea } from './format-measure';
+import type { SavedChange } from './saved-history';
 
 type Props = {
   propertyId: number;
@@ -11,10 +12,12 @@ type Props = {
   canEdit: boolean;
   hasFences: boolean;
   onReshape: (paddock: Paddock) => void;
+  /** A removal saved here, for the saved history. */
+  onSaved: (change: SavedChange, message: string) => void;
 };
 
 /** Paddocks with their areas; editors reshape or remove them, or make them from closed fence networks. */
-export function PaddocksPanel({ propertyId, paddocks, loading, canEdit, hasFences, onReshape }: Props) {
+export function PaddocksPanel({ propertyId, paddocks, loading, canEdit, hasFences, onReshape, onSaved }: Props) {
   const queryClient = useQueryClient();
   const [message, setMessage] = useState<string | null>(null);
   const refresh = () => queryClient.invalidateQueries({ queryKey: ['paddocks', propertyId] });
@@ -29,7 +32,15 @@ export function PaddocksPanel({ propertyId, paddocks, loading, canEdit, hasFence
       );
     },
   });
-  const remove = useMutation({ mutationFn: (paddock: Paddock) => api.deletePaddock(propertyId, paddock.id), onSuccess: refresh });
+  const remove = useMutation({
+    // With the version read, so a paddock someone else changed meanwhile is not removed unseen.
+    mutationFn: (paddock: Paddock) => api.deletePaddock(propertyId, paddock.id, paddock.version),
+    onSuccess: async (_answer, paddock) => {
+      await refresh();
+      setMessage(null);
+      onSaved({ what: 'paddock-deleted', paddock }, `Paddock ${paddock.name} was removed.`);
+    },
+  });
   const totalHa = paddocks.reduce((sum, p) => sum + p.areaHa, 0);
   const failure = fromFences.error ?? remove.error;
 

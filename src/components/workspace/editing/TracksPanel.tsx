@@ -10,6 +10,7 @@ type Props = {
   tracks: Track[];
   loading: boolean;
   canEdit: boolean;
+  /** A fence line made from a track (recorded in the saved history by the workspace). */
   onFenceMade: (fenceLine: FenceLine) => void;
 };
 

@@ -1,5 +1,6 @@
 import { useEffect, useRef } from 'react';
 import type { PlanEditor } from './use-plan-editor';
+import type { SavedHistoryControls } from './use-saved-history';
 
 type Shortcut = { keys: string[]; does: string; editorsOnly?: boolean };
 
@@ -8,8 +9,9 @@ export const SHORTCUTS: Shortcut[] = [
   { keys: ['F'], does: 'Draw a fence line', editorsOnly: true },
   { keys: ['P'], does: 'Draw a paddock', editorsOnly: true },
   { keys: ['Enter'], does: 'Finish the line or paddock being drawn', editorsOnly: true },
-  { keys: ['Ctrl', 'Z'], does: 'Undo the last point or move', editorsOnly: true },
+  { keys: ['Ctrl', 'Z'], does: 'Undo the last point or move; with nothing being drawn, undo the last saved change', editorsOnly: true },
   { keys: ['Ctrl', 'Shift', 'Z'], does: 'Redo', editorsOnly: true },
+  { keys: ['Ctrl', 'Y'], does: 'Redo a saved change (with nothing being drawn)', editorsOnly: true },
   { keys: ['Esc'], does: 'Stop drawing or reshaping, or close this list' },
   { keys: ['?'], does: 'Show or hide this list' },
   { keys: ['+', '−'], does: 'Zoom the map in or out (with the map focused)' },
@@ -23,20 +25,28 @@ const isTyping = (target: EventTarget | null) =>
 const isMapCanvas = (target: EventTarget | null) => target instanceof HTMLCanvasElement && target.classList.contains('maplibregl-canvas');
 
 /** The workspace's keyboard shortcuts (listed in SHORTCUTS); none fire while typing in a field. */
-export function useWorkspaceShortcuts({ editor, canEdit, onHelp }: { editor: PlanEditor; canEdit: boolean; onHelp: () => void }) {
-  const latest = useRef({ editor, canEdit, onHelp });
-  latest.current = { editor, canEdit, onHelp };
+export function useWorkspaceShortcuts({ editor, saved, canEdit, onHelp }: { editor: PlanEditor; saved: SavedHistoryControls; canEdit: boolean; onHelp: () => void }) {
+  const latest = useRef({ editor, saved, canEdit, onHelp });
+  latest.current = { editor, saved, canEdit, onHelp };
 
   useEffect(() => {
     const onKeyDown = (event: KeyboardEvent) => {
       if (isTyping(event.target) || event.altKey) return;
-      const { editor: e, canEdit: editable, onHelp: help } = latest.current;
+      const { editor: e, saved: history, canEdit: editable, onHelp: help } = latest.current;
       const drawingOrReshaping = e.tool.kind === 'draw' || e.tool.kind === 'reshape';
       const command = event.ctrlKey || event.metaKey;
       if (command && drawingOrReshaping && !isMapCanvas(event.target) && event.key.toLowerCase() === 'z') {
         event.preventDefault();
         if (event.shiftKey) e.controlsRef.current?.redo();
         else e.controlsRef.current?.undo();
+        return;
+      }
+      // With nothing being drawn, the same keys undo and redo saved changes.
+      const key = event.key.toLowerCase();
+      if (command && editable && !e.task && (key === 'z' || key === 'y')) {
+        event.preventDefault();
+        if (key === 'y' || event.shiftKey) history.redo();
+        else history.undo();
         return;
       }
       if (command) return;

@@ -6,6 +6,7 @@ import type { FenceLine } from '../../../lib/schemas/plan';
 import type { Paddock } from '../../../lib/schemas/paddock';
 import type { FenceLineDetails } from './FenceLineForm';
 import type { DraftShape, DrawControls, DrawTool } from './PlanDrawing';
+import type { SavedChange } from './saved-history';
 
 /** The edit under way: a new fence line or paddock (being drawn, then described), or a reshape. */
 export type EditTask =
@@ -17,7 +18,10 @@ export type EditTask =
 /** A save refused because someone else changed the same thing: theirs is kept aside, ours stays on the map. */
 export type EditConflict = { message: string; latestVersion: number | null };
 
-type Options = { propertyId: number; onSaved: (saved: { fenceLine?: FenceLine; paddock?: Paddock; message: string }) => void };
+/** A save that went through: what the server answered, the change for the saved history, and a sentence saying so. */
+export type EditorSave = { fenceLine?: FenceLine; paddock?: Paddock; change: SavedChange; message: string };
+
+type Options = { propertyId: number; onSaved: (saved: EditorSave) => void };
 
 const fieldsOf = (error: unknown) => (error instanceof ApiError ? Object.fromEntries(Object.entries(error.fields).map(([k, v]) => [k.replace(/^wireSpec\./, ''), v])) : {});
 const messageOf = (error: unknown) => (error instanceof Error ? error.message : 'The change could not be saved.');
@@ -104,7 +108,7 @@ export function usePlanEditor({ propertyId, onSaved }: Options) {
   }, []);
 
   const run = useCallback(
-    async (save: () => Promise<{ fenceLine?: FenceLine; paddock?: Paddock; message: string }>) => {
+    async (save: () => Promise<EditorSave>) => {
       setBusy(true);
       setError(null);
       try {
@@ -129,7 +133,7 @@ export function usePlanEditor({ propertyId, onSaved }: Options) {
       if (finished?.kind !== 'fence') return;
       void run(async () => {
         const { fenceLine } = await api.createFenceLine(propertyId, { ...details, coordinates: finished.coordinates });
-        return { fenceLine, message: `${fenceLine.name} saved; its crossings were found and designed.` };
+        return { fenceLine, change: { what: 'fence-created', fence: fenceLine }, message: `${fenceLine.name} saved; its crossings were found and designed.` };
       });
     },
     [finished, propertyId, run],
@@ -140,7 +144,7 @@ export function usePlanEditor({ propertyId, onSaved }: Options) {
       if (finished?.kind !== 'paddock') return;
       void run(async () => {
         const { paddock } = await api.createPaddock(propertyId, { name, rings: [finished.ring] });
-        return { paddock, message: `${paddock.name} saved: ${paddock.areaHa.toFixed(1)} ha.` };
+        return { paddock, change: { what: 'paddock-created', paddock }, message: `${paddock.name} saved: ${paddock.areaHa.toFixed(1)} ha.` };
       });
     },
     [finished, propertyId, run],
@@ -154,13 +158,17 @@ export function usePlanEditor({ propertyId, onSaved }: Options) {
       if (task.kind === 'reshape-fence' && shape.kind === 'fence') {
         void run(async () => {
           const { fenceLine } = await api.updateFenceLine(propertyId, task.fence.id, { coordinates: shape.coordinates, version: overVersion ?? task.fence.version });
-          return { fenceLine, message: `${fenceLine.name} has its new shape; its crossings were found and designed again.` };
+          return {
+            fenceLine,
+            change: { what: 'fence-reshaped', before: task.fence, after: fenceLine },
+            message: `${fenceLine.name} has its new shape; its crossings were found and designed again.`,
+          };
         });
       }
       if (task.kind === 'reshape-paddock' && shape.kind === 'paddock') {
         void run(async () => {
           const { paddock } = await api.updatePaddock(propertyId, task.paddock.id, { rings: [shape.ring], version: overVersion ?? task.paddock.version });
-          return { paddock, message: `${paddock.name} has its new boundary: ${paddock.areaHa.toFixed(1)} ha.` };
+          return { paddock, change: { what: 'paddock-reshaped', before: task.paddock, after: paddock }, message: `${paddock.name} has its new boundary: ${paddock.areaHa.toFixed(1)} ha.` };
         });
       }
     },

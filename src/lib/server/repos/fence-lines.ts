@@ -148,9 +148,17 @@ export async function updateFenceLine(
   });
 }
 
-export async function deleteFenceLine(propertyId: number, id: number, userId: number): Promise<void> {
+/**
+ * Deletes a fence line (its crossings and work order items go with it). With `version`, the one
+ * the caller read, a deletion made on stale data is refused (409) with nothing changed.
+ * @throws NotFoundError, ConflictError
+ */
+export async function deleteFenceLine(propertyId: number, id: number, userId: number, version?: number): Promise<void> {
   await db().transaction(async (trx) => {
     const fence = await getFenceLine(propertyId, id, trx);
+    if (version !== undefined && fence.version !== version) {
+      throw new ConflictError(`Someone changed "${fence.name}" since you opened it (now version ${fence.version}). Reload it to see their change, then delete it if you still mean to.`);
+    }
     await trx('fence_lines').where({ id, property_id: propertyId }).delete();
     await recordAudit({ propertyId, userId, action: 'fence_line.delete', entityType: 'fence_line', entityId: id, detail: { name: fence.name } }, trx);
   });

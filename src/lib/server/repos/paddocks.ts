@@ -81,9 +81,17 @@ export async function updatePaddock(propertyId: number, id: number, changes: Pad
   });
 }
 
-export async function deletePaddock(propertyId: number, id: number, userId: number): Promise<void> {
+/**
+ * Deletes a paddock. With `version`, the one the caller read, a deletion made on stale data is
+ * refused (409) with nothing changed.
+ * @throws NotFoundError, ConflictError
+ */
+export async function deletePaddock(propertyId: number, id: number, userId: number, version?: number): Promise<void> {
   await db().transaction(async (trx) => {
     const paddock = await getPaddock(propertyId, id, trx);
+    if (version !== undefined && paddock.version !== version) {
+      throw new ConflictError(`Someone changed "${paddock.name}" since you opened it (now version ${paddock.version}). Reload it to see their change, then delete it if you still mean to.`);
+    }
     await trx('paddocks').where({ id, property_id: propertyId }).delete();
     await recordAudit({ propertyId, userId, action: 'paddock.delete', entityType: 'paddock', entityId: id, detail: { name: paddock.name } }, trx);
   });

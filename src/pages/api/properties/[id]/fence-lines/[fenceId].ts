@@ -1,6 +1,7 @@
 import type { APIRoute } from 'astro';
 import { requireRole } from '../../../../../lib/server/auth';
-import { parseId, readJson } from '../../../../../lib/server/http';
+import { parseId, parseWith, readJson } from '../../../../../lib/server/http';
+import { deleteVersionQuerySchema } from '../../../../../lib/schemas/queries';
 import { analyseCrossings } from '../../../../../lib/server/crossings/analyse-crossings';
 import { deleteFenceLine, getFenceLine, serverFenceLineSchemas, updateFenceLine } from '../../../../../lib/server/repos/fence-lines';
 
@@ -18,8 +19,10 @@ export const PATCH: APIRoute = async ({ locals, params, request }) => {
   return Response.json({ fenceLine });
 };
 
-export const DELETE: APIRoute = async ({ locals, params }) => {
+/** Deletes the fence line; `?version=` (the one you read) refuses it with 409 when someone changed it meanwhile. */
+export const DELETE: APIRoute = async ({ locals, params, url }) => {
   const { propertyId, user } = await requireRole(locals, params.id, 'manager');
-  await deleteFenceLine(propertyId, parseId(params.fenceId, 'fence line'), user.id);
+  const { version } = parseWith(deleteVersionQuerySchema, Object.fromEntries(url.searchParams));
+  await deleteFenceLine(propertyId, parseId(params.fenceId, 'fence line'), user.id, version);
   return new Response(null, { status: 204 });
 };

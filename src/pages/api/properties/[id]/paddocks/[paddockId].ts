@@ -1,7 +1,8 @@
 import type { APIRoute } from 'astro';
 import { paddockUpdateSchema } from '../../../../../lib/schemas/paddock';
 import { requireRole } from '../../../../../lib/server/auth';
-import { parseId, readJson } from '../../../../../lib/server/http';
+import { parseId, parseWith, readJson } from '../../../../../lib/server/http';
+import { deleteVersionQuerySchema } from '../../../../../lib/schemas/queries';
 import { deletePaddock, getPaddock, updatePaddock } from '../../../../../lib/server/repos/paddocks';
 
 export const GET: APIRoute = async ({ locals, params }) => {
@@ -16,8 +17,10 @@ export const PATCH: APIRoute = async ({ locals, params, request }) => {
   return Response.json({ paddock: await updatePaddock(propertyId, parseId(params.paddockId, 'paddock'), changes, user.id) });
 };
 
-export const DELETE: APIRoute = async ({ locals, params }) => {
+/** Deletes the paddock; `?version=` (the one you read) refuses it with 409 when someone changed it meanwhile. */
+export const DELETE: APIRoute = async ({ locals, params, url }) => {
   const { propertyId, user } = await requireRole(locals, params.id, 'manager');
-  await deletePaddock(propertyId, parseId(params.paddockId, 'paddock'), user.id);
+  const { version } = parseWith(deleteVersionQuerySchema, Object.fromEntries(url.searchParams));
+  await deletePaddock(propertyId, parseId(params.paddockId, 'paddock'), user.id, version);
   return new Response(null, { status: 204 });
 };
