@@ -6,6 +6,7 @@ import { planToKml } from '../geo/plan-kml';
 import type { CrossingFloodsView, LayoutPointView } from '../schemas/crossing-view';
 import type { Role } from '../schemas/roles';
 import { listCrossingsWithDesigns } from './repos/crossings';
+import { keptValue } from './read-cache';
 import { listFenceLines } from './repos/fence-lines';
 import { getProperty } from './repos/properties';
 import { listPaddocks } from './repos/paddocks';
@@ -22,8 +23,17 @@ const FORMATS: Record<PlanExportKind, { contentType: string; suffix: string; wri
 
 type StoredDesign = { status?: string; floods?: CrossingFloodsView; positions?: LayoutPointView[]; profile?: { chainageM: number; elevationM: number | null }[] };
 
-/** A property's fence lines, paddocks and crossings (with the layout points of designed ones), as the exporters take them. */
+/**
+ * A property's fence lines, paddocks and crossings (with the layout points of designed ones), as the
+ * exporters take them. Gathering reads every stored design; the result is kept until the plan
+ * changes (read-cache.ts), so repeated exports of an unchanged plan only write the file.
+ */
 export async function gatherPlan(propertyId: number, role: Role, now: Date = new Date()): Promise<PlanForExport> {
+  const plan = await keptValue('plan-export', propertyId, 'plan', () => gatherPlanNow(propertyId, role), (gathered) => JSON.stringify(gathered).length);
+  return { ...plan, exportedAt: now.toISOString() };
+}
+
+async function gatherPlanNow(propertyId: number, role: Role): Promise<Omit<PlanForExport, 'exportedAt'>> {
   const [property, fenceLines, paddocks, crossings] = await Promise.all([
     getProperty(propertyId, role),
     listFenceLines(propertyId),
@@ -32,7 +42,6 @@ export async function gatherPlan(propertyId: number, role: Role, now: Date = new
   ]);
   return {
     propertyName: property.name,
-    exportedAt: now.toISOString(),
     fenceLines,
     paddocks,
     crossings: crossings.map((crossing): PlanCrossing => {

@@ -4,7 +4,7 @@ import { bundledMigrations } from '../../../src/lib/server/migration-source';
 
 afterAll(closeDb);
 
-const TABLES = ['users', 'properties', 'memberships', 'invitations', 'audit_log', 'elevation_models', 'terrain_runs', 'drainage_lines', 'fence_lines', 'tracks', 'paddocks', 'crossings', 'property_settings', 'outbox', 'revoked_sessions', 'work_orders', 'work_order_items', 'rain_events', 'inspection_rounds', 'inspection_checks', 'inspection_photos'];
+const TABLES = ['users', 'properties', 'memberships', 'invitations', 'audit_log', 'elevation_models', 'terrain_runs', 'drainage_lines', 'fence_lines', 'tracks', 'paddocks', 'crossings', 'property_settings', 'outbox', 'revoked_sessions', 'work_orders', 'work_order_items', 'rain_events', 'inspection_rounds', 'inspection_checks', 'inspection_photos', 'read_generations'];
 
 describe('migrations', () => {
   it('create every table, roll all the way back, and apply again', async () => {

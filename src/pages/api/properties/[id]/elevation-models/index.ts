@@ -2,12 +2,13 @@ import type { APIRoute } from 'astro';
 import { uploadQuerySchema } from '../../../../../lib/schemas/terrain';
 import { requireRole } from '../../../../../lib/server/auth';
 import { parseWith } from '../../../../../lib/server/http';
+import { keptJsonAnswer } from '../../../../../lib/server/read-cache';
 import { listElevationModels } from '../../../../../lib/server/repos/terrain';
 import { acceptElevationModel } from '../../../../../lib/server/terrain/accept-elevation-model';
 
-export const GET: APIRoute = async ({ locals, params }) => {
+export const GET: APIRoute = async ({ locals, params, request }) => {
   const { propertyId } = await requireRole(locals, params.id, 'viewer');
-  return Response.json({ elevationModels: await listElevationModels(propertyId) });
+  return keptJsonAnswer(request, 'elevation-models', propertyId, 'terrain', 'application/json', async () => ({ elevationModels: await listElevationModels(propertyId) }));
 };
 
 /**

@@ -1,12 +1,13 @@
 import type { APIRoute } from 'astro';
 import { requireRole } from '../../../../../lib/server/auth';
 import { readJson } from '../../../../../lib/server/http';
+import { keptJsonAnswer } from '../../../../../lib/server/read-cache';
 import { analyseCrossings } from '../../../../../lib/server/crossings/analyse-crossings';
 import { createFenceLine, listFenceLines, serverFenceLineSchemas } from '../../../../../lib/server/repos/fence-lines';
 
-export const GET: APIRoute = async ({ locals, params }) => {
+export const GET: APIRoute = async ({ locals, params, request }) => {
   const { propertyId } = await requireRole(locals, params.id, 'viewer');
-  return Response.json({ fenceLines: await listFenceLines(propertyId) });
+  return keptJsonAnswer(request, 'fence-lines', propertyId, 'plan', 'application/json', async () => ({ fenceLines: await listFenceLines(propertyId) }));
 };
 
 export const POST: APIRoute = async ({ locals, params, request }) => {
