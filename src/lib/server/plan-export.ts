@@ -5,7 +5,8 @@ import { planToGpx } from '../geo/plan-gpx';
 import { planToKml } from '../geo/plan-kml';
 import type { CrossingFloodsView, LayoutPointView } from '../schemas/crossing-view';
 import type { Role } from '../schemas/roles';
-import { listCrossingsWithDesigns } from './repos/crossings';
+import { createHash } from 'node:crypto';
+import { listCrossingsWithDesignText } from './repos/crossings';
 import { keptValue } from './read-cache';
 import { listFenceLines } from './repos/fence-lines';
 import { getProperty } from './repos/properties';
@@ -38,15 +39,14 @@ async function gatherPlanNow(propertyId: number, role: Role): Promise<Omit<PlanF
     getProperty(propertyId, role),
     listFenceLines(propertyId),
     listPaddocks(propertyId),
-    listCrossingsWithDesigns(propertyId),
+    listCrossingsWithDesignText(propertyId),
   ]);
   return {
     propertyName: property.name,
     fenceLines,
     paddocks,
     crossings: crossings.map((crossing): PlanCrossing => {
-      const design = crossing.design as StoredDesign | null;
-      const floods = design?.floods;
+      const { flood, layoutPoints } = designParts(crossing.id, crossing.designText);
       return {
         id: crossing.id,
         fenceLineId: crossing.fenceLineId,
@@ -60,11 +60,38 @@ async function gatherPlanNow(propertyId: number, role: Role): Promise<Omit<PlanF
         catchmentHa: crossing.upstreamAreaHa,
         designStatus: crossing.designStatus,
         style: crossing.style,
-        flood: floods ? { levelM: floods.levelM ?? null, maxDepthM: floods.maxDepthM ?? null, widthM: floods.wettedWidthM ?? null } : null,
-        layoutPoints: design?.status === 'designed' ? layoutPointsOf(design) : [],
+        flood,
+        layoutPoints,
       };
     }),
   };
+}
+
+type DesignParts = Pick<PlanCrossing, 'flood' | 'layoutPoints'>;
+
+/**
+ * What the export takes from each stored design, by crossing, with a digest of the design text it
+ * came from: after a fence edit only that line's crossings are parsed again, not every design of
+ * the station. Bounded by count; a crossing re-designed gets a new digest and is parsed afresh.
+ */
+const partsByCrossing = new Map<number, { digest: string; parts: DesignParts }>();
+const MAX_KEPT_PARTS = 20_000;
+
+function designParts(crossingId: number, designText: string | null): DesignParts {
+  if (!designText) return { flood: null, layoutPoints: [] };
+  const digest = createHash('sha1').update(designText).digest('base64');
+  const kept = partsByCrossing.get(crossingId);
+  if (kept?.digest === digest) return kept.parts;
+  const design = JSON.parse(designText) as StoredDesign;
+  const floods = design.floods;
+  const parts: DesignParts = {
+    flood: floods ? { levelM: floods.levelM ?? null, maxDepthM: floods.maxDepthM ?? null, widthM: floods.wettedWidthM ?? null } : null,
+    layoutPoints: design.status === 'designed' ? layoutPointsOf(design) : [],
+  };
+  partsByCrossing.delete(crossingId);
+  partsByCrossing.set(crossingId, { digest, parts });
+  if (partsByCrossing.size > MAX_KEPT_PARTS) partsByCrossing.delete(partsByCrossing.keys().next().value!);
+  return parts;
 }
 
 function layoutPointsOf(design: StoredDesign): PlanLayoutPoint[] {

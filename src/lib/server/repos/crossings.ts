@@ -97,23 +97,25 @@ export async function listCrossings(propertyId: number, trx: Knex = db()): Promi
     .select(...SUMMARY_COLUMNS.map((column) => `c.${column}`), 'f.name as fence_name')
     .where('c.property_id', propertyId)
     .orderBy([{ column: 'c.fence_line_id' }, { column: 'c.chainage_m' }]);
-  return rows.map((row) =>
-    rowToSummary(row, {
-      provisional: Boolean(row.design_provisional),
-      style: row.design_style,
-      floodLevelM: row.design_flood_level_m,
-      floodgateLengthM: row.design_floodgate_length_m,
-    }),
-  );
+  return rows.map((row) => rowToSummary(row, figuresOfRow(row)));
 }
 
-/** Every crossing of a property with its stored design (null before one is made), by fence line then chainage. */
-export async function listCrossingsWithDesigns(propertyId: number, trx: Knex = db()) {
-  const rows = await selectRows(trx).where('c.property_id', propertyId).orderBy([{ column: 'c.fence_line_id' }, { column: 'c.chainage_m' }]);
-  return rows.map((row) => {
-    const design = row.design ? (JSON.parse(row.design) as Record<string, unknown>) : null;
-    return { ...rowToSummary(row, figuresOf(design)), design };
-  });
+/** The summary's design figures from their own columns. */
+function figuresOfRow(row: SummaryRow): DesignFigures {
+  return { provisional: Boolean(row.design_provisional), style: row.design_style, floodLevelM: row.design_flood_level_m, floodgateLengthM: row.design_floodgate_length_m };
+}
+
+/**
+ * Every crossing with its stored design as text, unparsed: a design is tens of kilobytes of JSON,
+ * and the plan export parses only the ones that changed since it last looked (plan-export.ts).
+ */
+export async function listCrossingsWithDesignText(propertyId: number, trx: Knex = db()): Promise<(CrossingSummary & { designText: string | null })[]> {
+  const rows: (SummaryRow & { design: string | null })[] = await trx('crossings as c')
+    .join('fence_lines as f', 'f.id', 'c.fence_line_id')
+    .select(...SUMMARY_COLUMNS.map((column) => `c.${column}`), 'c.design', 'f.name as fence_name')
+    .where('c.property_id', propertyId)
+    .orderBy([{ column: 'c.fence_line_id' }, { column: 'c.chainage_m' }]);
+  return rows.map((row) => ({ ...rowToSummary(row, figuresOfRow(row)), designText: row.design }));
 }
 
 /** One crossing with its inputs and full design. @throws NotFoundError (also for another property's crossing) */
