@@ -1,6 +1,7 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { useId, useState, type ChangeEvent } from 'react';
 import { exportUrl, importPlan } from '../../lib/client/api';
+import { refreshPlanQueries } from '../../lib/client/plan-queries';
 
 type Props = { propertyId: number; canEdit: boolean };
 
@@ -18,7 +19,7 @@ export function ExportPanel({ propertyId, canEdit }: Props) {
   const load = useMutation({
     mutationFn: (file: File) => importPlan(propertyId, file),
     onSuccess: async ({ imported }, file) => {
-      await Promise.all(['fence-lines', 'crossings', 'paddocks', 'costs'].map((key) => queryClient.invalidateQueries({ queryKey: [key, propertyId] })));
+      await refreshPlanQueries(queryClient, propertyId);
       setMessage(
         `${file.name}: ${imported.fenceLines} ${imported.fenceLines === 1 ? 'fence line' : 'fence lines'} and ${imported.paddocks} ${imported.paddocks === 1 ? 'paddock' : 'paddocks'} added; their crossings were found and designed.`,
       );

@@ -1,6 +1,7 @@
 import { useQueryClient } from '@tanstack/react-query';
 import { useCallback, useMemo, useRef, useState } from 'react';
 import { ApiError, api } from '../../../lib/client/api';
+import { refreshPlanQueries } from '../../../lib/client/plan-queries';
 import { lineLengthM, polygonAreaHa } from '../../../lib/geo/measure';
 import type { FenceLine } from '../../../lib/schemas/plan';
 import type { Paddock } from '../../../lib/schemas/paddock';
@@ -72,9 +73,7 @@ export function usePlanEditor({ propertyId, onSaved }: Options) {
   }, []);
 
   const refreshPlan = useCallback(async () => {
-    await Promise.all(
-      ['fence-lines', 'crossings', 'paddocks', 'costs'].map((key) => queryClient.invalidateQueries({ queryKey: [key, propertyId] })),
-    );
+    await refreshPlanQueries(queryClient, propertyId);
   }, [propertyId, queryClient]);
 
   const startDrawing = useCallback(

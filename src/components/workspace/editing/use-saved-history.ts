@@ -1,6 +1,7 @@
 import { useQueryClient } from '@tanstack/react-query';
 import { useCallback, useRef, useState } from 'react';
 import { ApiError, api } from '../../../lib/client/api';
+import { refreshPlanQueries } from '../../../lib/client/plan-queries';
 import {
   doneMessage,
   dropStep,
@@ -68,7 +69,7 @@ export function useSavedHistory({ propertyId, onMessage }: { propertyId: number;
           latest.current.onMessage(`Could not ${direction} the ${saved.label}: ${caught instanceof Error ? caught.message : 'the server did not answer.'} Nothing was changed.`);
         }
       } finally {
-        await Promise.all(['fence-lines', 'crossings', 'paddocks', 'costs'].map((key) => queryClient.invalidateQueries({ queryKey: [key, propertyId] })));
+        await refreshPlanQueries(queryClient, propertyId);
         setBusy(false);
       }
     },
