@@ -6,7 +6,7 @@
 import type { Browser, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { launchBrowser, screenshot, seedDemoIntoTestServer, waitForMap, openDemoWorkspace } from '../helpers/browser';
-import { drainageLines, fenceAcrossSegment, mainCreekPoint, propertyIdOf } from '../helpers/creek-fence';
+import { drainageLines, fenceAcrossSegment, framePoints, mainCreekPoint, propertyIdOf } from '../helpers/creek-fence';
 
 let browser: Browser;
 beforeAll(async () => {
@@ -16,21 +16,6 @@ beforeAll(async () => {
 afterAll(() => browser?.close());
 
 const openDemo = (role: 'manager' | 'crew', viewport?: { width: number; height: number }) => openDemoWorkspace(browser, role, viewport);
-
-/** Frames the given points on the map and returns their positions on the page. */
-async function framePoints(page: Page, points: [number, number][]): Promise<{ x: number; y: number }[]> {
-  const onScreen = await page.evaluate(async (lonLats) => {
-    const map = window.__gullylineMap!;
-    const lons = lonLats.map((p) => p[0]);
-    const lats = lonLats.map((p) => p[1]);
-    // Clear of the map key (top left) and the edit toolbar (top right).
-    map.fitBounds([Math.min(...lons), Math.min(...lats), Math.max(...lons), Math.max(...lats)], { padding: { top: 280, left: 300, right: 80, bottom: 60 }, duration: 0 });
-    await new Promise((resolve) => map.once('idle', resolve));
-    return lonLats.map((p) => map.project(p as [number, number]));
-  }, points);
-  const box = (await page.locator('[data-testid=property-map] canvas').boundingBox())!;
-  return onScreen.map((p) => ({ x: box.x + p.x, y: box.y + p.y }));
-}
 
 async function clickAt(page: Page, at: { x: number; y: number }) {
   await page.mouse.move(at.x, at.y, { steps: 4 });

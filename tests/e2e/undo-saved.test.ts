@@ -5,7 +5,7 @@
 import type { Browser, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { launchBrowser, openDemoWorkspace, screenshot, seedDemoIntoTestServer } from '../helpers/browser';
-import { drainageLines, fenceAcrossSegment, mainCreekPoint, propertyIdOf } from '../helpers/creek-fence';
+import { drainageLines, fenceAcrossSegment, framePoints, mainCreekPoint, propertyIdOf } from '../helpers/creek-fence';
 
 let browser: Browser;
 beforeAll(async () => {
@@ -15,20 +15,6 @@ beforeAll(async () => {
 afterAll(() => browser?.close());
 
 const NAME = 'Undone across the creek';
-
-/** Frames the points on the map, clear of the map key and the edit toolbar, and returns them on the page. */
-async function framePoints(page: Page, points: [number, number][]): Promise<{ x: number; y: number }[]> {
-  const onScreen = await page.evaluate(async (lonLats) => {
-    const map = window.__gullylineMap!;
-    const lons = lonLats.map((p) => p[0]);
-    const lats = lonLats.map((p) => p[1]);
-    map.fitBounds([Math.min(...lons), Math.min(...lats), Math.max(...lons), Math.max(...lats)], { padding: { top: 280, left: 300, right: 80, bottom: 60 }, duration: 0 });
-    await new Promise((resolve) => map.once('idle', resolve));
-    return lonLats.map((p) => map.project(p as [number, number]));
-  }, points);
-  const box = (await page.locator('[data-testid=property-map] canvas').boundingBox())!;
-  return onScreen.map((p) => ({ x: box.x + p.x, y: box.y + p.y }));
-}
 
 /** Names of the fence lines, and of the fence lines with crossings, in the map's own sources. */
 async function onTheMap(page: Page): Promise<{ fences: string[]; crossingFences: string[] }> {

@@ -47,3 +47,20 @@ export async function drainageLines(page: Page, propertyId: number): Promise<Lon
 }
 
 export const propertyIdOf = (page: Page) => Number(new URL(page.url()).pathname.split('/').at(-1));
+
+/**
+ * Frames the points on the map, clear of the map key (top left) and the edit toolbar (top right),
+ * and returns where they are on the page.
+ */
+export async function framePoints(page: Page, points: LonLat[]): Promise<{ x: number; y: number }[]> {
+  const onScreen = await page.evaluate(async (lonLats) => {
+    const map = window.__gullylineMap!;
+    const lons = lonLats.map((p) => p[0]);
+    const lats = lonLats.map((p) => p[1]);
+    map.fitBounds([Math.min(...lons), Math.min(...lats), Math.max(...lons), Math.max(...lats)], { padding: { top: 280, left: 300, right: 80, bottom: 60 }, duration: 0 });
+    await new Promise((resolve) => map.once('idle', resolve));
+    return lonLats.map((p) => map.project(p as [number, number]));
+  }, points);
+  const box = (await page.locator('[data-testid=property-map] canvas').boundingBox())!;
+  return onScreen.map((p) => ({ x: box.x + p.x, y: box.y + p.y }));
+}
