@@ -13,7 +13,7 @@ const BUDGET_BYTES = 64 * 1024 * 1024;
 /** Answers smaller than this are sent as they are (as compressAnswer does). */
 const GZIP_MIN_BYTES = 8 * 1024;
 
-type Entry = { stamp: number; value: unknown; bytes: number; gzipped?: Promise<Buffer<ArrayBuffer>> };
+type Entry = { stamp: number; value: unknown; bytes: number };
 const entries = new Map<string, Entry>();
 let usedBytes = 0;
 
@@ -66,23 +66,23 @@ export async function keptValue<T>(key: string, propertyId: number, which: ReadG
  * JSON and compression on every call.
  */
 export async function keptJsonAnswer(request: Request, key: string, propertyId: number, which: ReadGeneration, contentType: string, compute: () => Promise<unknown>): Promise<Response> {
-  const stamp = await readGeneration(propertyId, which);
-  const fullKey = `json:${key}:${propertyId}`;
-  let entry = recall(fullKey, stamp);
-  if (!entry) {
-    const body = Buffer.from(JSON.stringify(await compute())) as Buffer<ArrayBuffer>;
+  const kept = await keptValue(
+    `json:${key}`,
+    propertyId,
+    which,
+    async (): Promise<KeptJson> => ({ body: Buffer.from(JSON.stringify(await compute())) as Buffer<ArrayBuffer> }),
     // The gzip made later is about a third of the body or less: count it now.
-    entry = { stamp, value: body, bytes: Math.ceil(body.byteLength * 1.35) };
-    remember(fullKey, entry);
-  }
-  const body = entry.value as Buffer<ArrayBuffer>;
+    ({ body }) => Math.ceil(body.byteLength * 1.35),
+  );
   const headers = new Headers({ 'Content-Type': contentType, Vary: 'Accept-Encoding' });
-  if (body.byteLength < GZIP_MIN_BYTES || !/\bgzip\b/i.test(request.headers.get('Accept-Encoding') ?? '')) return new Response(body, { headers });
-  entry.gzipped ??= gzipAsync(body, { level: 6 }) as Promise<Buffer<ArrayBuffer>>;
-  const gzipped = await entry.gzipped;
+  if (kept.body.byteLength < GZIP_MIN_BYTES || !/\bgzip\b/i.test(request.headers.get('Accept-Encoding') ?? '')) return new Response(kept.body, { headers });
+  kept.gzipped ??= gzipAsync(kept.body, { level: 6 }) as Promise<Buffer<ArrayBuffer>>;
   headers.set('Content-Encoding', 'gzip');
-  return new Response(gzipped, { headers });
+  return new Response(await kept.gzipped, { headers });
 }
+
+/** A kept JSON answer: its bytes, and their gzip once a client has taken it. */
+type KeptJson = { body: Buffer<ArrayBuffer>; gzipped?: Promise<Buffer<ArrayBuffer>> };
 
 /** Forgets every kept answer (tests start each case from nothing). */
 export function forgetKeptAnswers(): void {
