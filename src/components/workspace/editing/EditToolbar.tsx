@@ -40,7 +40,8 @@ export function EditToolbar({ editor, saved }: Props) {
               Draw paddock
             </button>
           </div>
-          <div className="flex flex-row gap-2">
+          {/* On a phone the map is small: the row shows there only once there is something to undo or redo. */}
+          <div className={`flex-row gap-2 ${saved.undoLabel || saved.redoLabel ? 'flex' : 'hidden md:flex'}`}>
             <SavedStepButton direction="undo" label={saved.undoLabel} busy={saved.busy} onClick={saved.undo} />
             <SavedStepButton direction="redo" label={saved.redoLabel} busy={saved.busy} onClick={saved.redo} />
           </div>
