@@ -223,3 +223,27 @@ describe('materials and cost', () => {
     expect(after).toEqual(before);
   });
 });
+
+describe('a burst of fence edits', () => {
+  it('stores, by the time each edit is answered, the crossings a fresh analysis of the whole property finds', async () => {
+    // Five copies of the North cross fence 60 m apart, all moved 20 m east at once: the analyses
+    // they ask for wait together, and every answered edit must already have its crossings.
+    const north = manifest.fenceLines.find((f) => f.name === 'North cross fence')!.pointsLonLat;
+    const shifted = (dLon: number, dLat: number) => north.map(([lon, lat]) => [lon + dLon, lat + dLat] as [number, number]);
+    const created = [];
+    for (let i = 1; i <= 5; i += 1) {
+      const { status, body } = await manager.json<{ fenceLine: { id: number; version: number } }>('POST', `/api/properties/${propertyId}/fence-lines`, { name: `Burst ${i}`, coordinates: shifted(0, i * 0.00055) });
+      expect(status).toBe(201);
+      created.push({ ...body.fenceLine, index: i });
+    }
+    const answers = await Promise.all(
+      created.map(({ id, version, index }) => manager.json('PATCH', `/api/properties/${propertyId}/fence-lines/${id}`, { version, coordinates: shifted(0.0002, index * 0.00055) })),
+    );
+    expect(answers.map((answer) => answer.status)).toEqual([200, 200, 200, 200, 200]);
+    const place = (f: Feature) => `${f.properties.fenceLineId} ${f.properties.kind} ${f.geometry.coordinates.map((v) => v.toFixed(6)).join(',')} ${(f.properties.angleDeg as number | null)?.toFixed(1) ?? "-"} ${f.properties.designStatus}`;
+    const afterBurst = (await crossings()).map(place).sort();
+    for (const { id } of created) expect(afterBurst.some((p) => p.startsWith(`${id} crossing`)), `a crossing of fence ${id}`).toBe(true);
+    expect((await manager.json('POST', `/api/properties/${propertyId}/crossings/analyse`)).status).toBe(200);
+    expect((await crossings()).map(place).sort()).toEqual(afterBurst);
+  });
+});

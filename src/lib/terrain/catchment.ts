@@ -62,7 +62,7 @@ export function delineateCatchment(
   }
   if (!(snapRadiusM >= 0)) throw new RangeError(`the snap radius must be ≥ 0 metres, got ${snapRadiusM}`);
 
-  const outletCell = snapToChannel(grid, accumulation.areaM2, transform, point, snapRadiusM);
+  const outletCell = outletCellNear(grid, accumulation.areaM2, transform, point, snapRadiusM);
   if (outletCell < 0) return null;
 
   // Upslope cells in breadth-first order from the outlet, each with its flow distance to it.
@@ -123,7 +123,12 @@ export function delineateCatchment(
   };
 }
 
-function snapToChannel(grid: ElevationGrid, areaM2: Float64Array, transform: GridTransform, point: [number, number], radiusM: number): number {
+/**
+ * The cell a point snaps to: the one of largest upstream area within `radiusM` (what
+ * `delineateCatchment` starts from), or -1 when no valid cell is that near. Two points with the
+ * same outlet cell have the same catchment.
+ */
+export function outletCellNear(grid: ElevationGrid, areaM2: Float64Array, transform: GridTransform, point: [number, number], radiusM: number): number {
   const { width, height, data, cellWidthM, cellHeightM } = grid;
   const [colF, rowF] = toCell(transform, point[0], point[1]);
   const col0 = Math.round(colF);

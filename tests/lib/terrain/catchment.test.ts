@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { accumulateFlow, computeFlowDirections, fillDepressions } from '../../../src/lib/terrain/index';
-import { delineateCatchment } from '../../../src/lib/terrain/catchment';
+import { delineateCatchment, outletCellNear } from '../../../src/lib/terrain/catchment';
 import type { GridTransform } from '../../../src/lib/terrain/grid-transform';
 import { gridFromFunction } from './helpers';
 
@@ -49,6 +49,16 @@ describe('delineateCatchment', () => {
     const unsnapped = delineateCatchment(grid, filled, directions, accumulation, transform, besideThalweg, 0)!;
     expect(unsnapped.outlet.col).toBe(13);
     expect(snapped.areaM2).toBeGreaterThan(unsnapped.areaM2);
+  });
+
+  it('outletCellNear names the cell the catchment starts from (the key a server may keep it by)', () => {
+    const grid = gridFromFunction(21, 30, (col, row) => 0.3 * Math.abs(col - 10) + 0.05 * (29 - row), 10);
+    const { filled, directions, accumulation } = prepare(grid);
+    for (const [point, radius] of [[[500_135, 6_000_000 - 255], 40], [[500_135, 6_000_000 - 255], 0], [[500_101, 6_000_000 - 201], 15]] as [[number, number], number][]) {
+      const catchment = delineateCatchment(grid, filled, directions, accumulation, transform, point, radius)!;
+      expect(outletCellNear(grid, accumulation.areaM2, transform, point, radius)).toBe(catchment.outlet.row * grid.width + catchment.outlet.col);
+    }
+    expect(outletCellNear(grid, accumulation.areaM2, transform, [400_000, 6_000_000], 40)).toBe(-1);
   });
 
   it('equal-area slope of a concave profile lies between its steepest and flattest parts', () => {

@@ -10,19 +10,39 @@ export type { StoredDesign } from './compute-crossing-rows';
  * those fence lines. What a person entered for a crossing (flood mark, roughness, style…) is
  * carried over to the crossing found again at the same place. The finding and designing run in a
  * worker thread, so requests keep being answered meanwhile; the writing is done here.
+ *
+ * One analysis of a property runs at a time: a terrain run finishing while a fence is edited must
+ * not interleave two writes of the same crossings. Requests that arrive while one runs wait
+ * together as one batch (the union of their fence lines), so a burst of edits costs two analyses,
+ * not one per edit; the counts answered are the batch's.
  */
 export function analyseCrossings(propertyId: number, fenceLineIds?: number[]): Promise<{ crossings: number; designed: number }> {
-  // One analysis of a property at a time: a terrain run finishing while a fence is edited must
-  // not interleave two writes of the same crossings.
+  const open = waiting.get(propertyId);
+  if (open) {
+    if (!fenceLineIds) open.fenceLineIds = 'all';
+    else if (open.fenceLineIds !== 'all') for (const id of fenceLineIds) open.fenceLineIds.add(id);
+    return open.result;
+  }
+  const batch: Batch = { fenceLineIds: fenceLineIds ? new Set(fenceLineIds) : 'all', result: Promise.resolve({ crossings: 0, designed: 0 }) };
+  waiting.set(propertyId, batch);
   const previous = queues.get(propertyId) ?? Promise.resolve();
-  const next = previous.catch(() => undefined).then(async () => store(await computeInWorker(propertyId, fenceLineIds)));
-  const tail = next.catch(() => undefined);
+  batch.result = previous
+    .catch(() => undefined)
+    .then(async () => {
+      // Started: later requests make the next batch (this one reads the fence lines as they are now).
+      if (waiting.get(propertyId) === batch) waiting.delete(propertyId);
+      return store(await computeInWorker(propertyId, batch.fenceLineIds === 'all' ? undefined : [...batch.fenceLineIds]));
+    });
+  const tail = batch.result.catch(() => undefined);
   queues.set(propertyId, tail);
   void tail.then(() => queues.get(propertyId) === tail && queues.delete(propertyId));
-  return next;
+  return batch.result;
 }
 
+type Batch = { fenceLineIds: Set<number> | 'all'; result: Promise<{ crossings: number; designed: number }> };
+/** Per property: the analysis in progress or last queued (its end), and the batch not yet started. */
 const queues = new Map<number, Promise<unknown>>();
+const waiting = new Map<number, Batch>();
 
 async function store({ rows, designed, old }: ComputedCrossings): Promise<{ crossings: number; designed: number }> {
   const matchOf = (fenceId: number, drainageId: number, chainageM: number) => matchingCrossing(old, fenceId, drainageId, chainageM);

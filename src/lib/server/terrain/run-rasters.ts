@@ -17,23 +17,46 @@ export type RunRasters = {
   crs: ElevationModelCrs;
 };
 
-// A few rasters at most stay in memory, least recently used dropped first (a 16 M-cell model's
-// run rasters take about 300 MB).
-const cache = new Map<string, Promise<unknown>>();
-const CACHE_SIZE = 3;
+// Rasters stay in memory within a budget, least recently used dropped first: a 16 M-cell model's
+// run rasters take about 300 MB, a 600 × 600 one about 10 MB (so a server with many small
+// properties keeps all of theirs, where a count of three made each edit read its run from disk).
+const BUDGET_BYTES = 640 * 1024 * 1024;
+const cache = new Map<string, { loading: Promise<unknown>; bytes: number }>();
 
-function cached<T>(key: string, load: () => Promise<T>): Promise<T> {
-  const hit = cache.get(key) as Promise<T> | undefined;
+function cached<T extends object>(key: string, load: () => Promise<T>): Promise<T> {
+  const hit = cache.get(key);
   if (hit) {
     cache.delete(key);
     cache.set(key, hit);
-    return hit;
+    return hit.loading as Promise<T>;
   }
-  const loading = load();
-  loading.catch(() => cache.delete(key));
-  cache.set(key, loading);
-  while (cache.size > CACHE_SIZE) cache.delete(cache.keys().next().value!);
-  return loading;
+  const entry = { loading: load() as Promise<unknown>, bytes: 0 };
+  cache.set(key, entry);
+  entry.loading.then(
+    (value) => {
+      entry.bytes = arrayBytes(value as object);
+      let total = 0;
+      for (const { bytes } of cache.values()) total += bytes;
+      // The oldest go first; the one just read stays even when it alone is over the budget.
+      for (const [oldKey, old] of cache) {
+        if (total <= BUDGET_BYTES || old === entry) break;
+        cache.delete(oldKey);
+        total -= old.bytes;
+      }
+    },
+    () => cache.get(key) === entry && cache.delete(key),
+  );
+  return entry.loading as Promise<T>;
+}
+
+/** Bytes of the typed arrays a loaded raster holds (two levels down: grid, accumulation). */
+function arrayBytes(value: object, depth = 0): number {
+  let bytes = 0;
+  for (const part of Object.values(value)) {
+    if (ArrayBuffer.isView(part)) bytes += part.byteLength;
+    else if (part && typeof part === 'object' && depth < 2) bytes += arrayBytes(part as object, depth + 1);
+  }
+  return bytes;
 }
 
 /** The conditioned surface, flow directions and accumulation of a finished run (cached). */

@@ -1,6 +1,6 @@
 import type { ElevationAtPoint } from '../../schemas/queries';
 import { createFromWgs84, createToWgs84, roundLonLat } from '../../geo/reproject';
-import { delineateCatchment } from '../../terrain/catchment';
+import { delineateCatchment, outletCellNear, type Catchment } from '../../terrain/catchment';
 import { bilinearElevationM, sampleProfile } from '../../terrain/profile';
 import { db } from '../db';
 import { NotFoundError } from '../http';
@@ -80,9 +80,32 @@ async function delineateAt(propertyId: number, lonLat: [number, number], snapM: 
   const rasters = await loadRunRasters(covering.runId, covering.crs);
   const toWgs84 = createToWgs84(rasters.crs.proj4);
   const point = createFromWgs84(rasters.crs.proj4)(lonLat);
-  const catchment = delineateCatchment(rasters.grid, rasters.filled, rasters.directions, rasters.accumulation, rasters.transform, point, snapM, { outline });
+  const delineate = () => delineateCatchment(rasters.grid, rasters.filled, rasters.directions, rasters.accumulation, rasters.transform, point, snapM, { outline });
+  let catchment: Catchment | null;
+  if (outline) {
+    catchment = delineate();
+  } else {
+    const outlet = outletCellNear(rasters.grid, rasters.accumulation.areaM2, rasters.transform, point, snapM);
+    catchment = outlet < 0 ? null : keptFigures(`${covering.runId}:${outlet}`, delineate);
+  }
   if (!catchment) throw new NotFoundError('catchment', 'This place lies outside the elevation model or on nodata.');
   return { covering, catchment, toWgs84 };
+}
+
+/**
+ * Catchments without outline, by terrain run and outlet cell. Walking every upslope cell was most
+ * of a fence edit's design work, and an edit that moves a crossing a few metres almost always
+ * snaps to the same outlet: the same catchment. A run's rasters never change, so nothing goes stale.
+ */
+const figuresByOutlet = new Map<string, Catchment | null>();
+const KEPT_FIGURES = 5_000;
+
+function keptFigures(key: string, delineate: () => Catchment | null): Catchment | null {
+  if (figuresByOutlet.has(key)) return figuresByOutlet.get(key)!;
+  const catchment = delineate();
+  figuresByOutlet.set(key, catchment);
+  if (figuresByOutlet.size > KEPT_FIGURES) figuresByOutlet.delete(figuresByOutlet.keys().next().value!);
+  return catchment;
 }
 
 /** The catchment draining to a point (snapped to the channel within `snapM`), in WGS84, with the figures flood formulas need. */
