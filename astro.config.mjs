@@ -16,7 +16,8 @@ const publicHosts = (process.env.PUBLIC_HOSTS ?? '')
 
 export default defineConfig({
   output: 'server',
-  adapter: node({ mode: 'standalone' }),
+  // Middleware mode: src/serve.ts is the server (it sends the client's files itself, see http-server.ts).
+  adapter: node({ mode: 'middleware' }),
   integrations: [react(), auth()],
   security: {
     checkOrigin: true,

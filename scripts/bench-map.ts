@@ -27,7 +27,7 @@ import { BENCH_PROPERTY, seedBenchProperty } from './bench-map-property';
 import { freePort, CHROMIUM_ARGS } from './local-process';
 
 const seed = Number(process.argv[2] ?? 20261202);
-const ENTRY = 'dist/server/entry.mjs';
+const ENTRY = 'dist/server/serve.mjs';
 const RUNS = 3;
 const KB = 1000;
 const TARGETS = { firstIdleMs: 3000, landingJsBytes: 20 * KB, workspaceOwnJsBytes: 300 * KB };

@@ -1,6 +1,7 @@
 // Bundles the worker threads (terrain runs, crossing analysis) beside the built server
-// (dist/workers/), since Astro's build only bundles what pages and endpoints import. npm packages
-// stay external, loaded from node_modules.
+// (dist/workers/), since Astro's build only bundles what pages and endpoints import, and the HTTP
+// server that fronts Astro's handler (dist/server/serve.mjs). npm packages stay external, loaded
+// from node_modules.
 import { build } from 'esbuild';
 
 await build({
@@ -16,3 +17,17 @@ await build({
   logLevel: 'warning',
 });
 console.log('Built dist/workers/terrain-worker.mjs and analysis-worker.mjs');
+
+// The HTTP server in front of Astro's handler (src/serve.ts); it loads ./entry.mjs at run time.
+await build({
+  entryPoints: ['src/serve.ts'],
+  outfile: 'dist/server/serve.mjs',
+  bundle: true,
+  platform: 'node',
+  format: 'esm',
+  target: 'node20',
+  packages: 'external',
+  sourcemap: true,
+  logLevel: 'warning',
+});
+console.log('Built dist/server/serve.mjs');

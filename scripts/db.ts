@@ -1,4 +1,4 @@
-// Database commands: `tsx scripts/db.ts migrate | rollback | seed | backup [folder] | restore <backup> [--target <data folder>] [--force]`.
+// Database commands: `tsx scripts/db.ts migrate | rollback | seed [--copies N] | backup [folder] | restore <backup> [--target <data folder>] [--force]`.
 // Runs the same migrations the server bundles, loaded here from the migrations folder.
 import { readdirSync, readFileSync } from 'node:fs';
 import path from 'node:path';
@@ -16,7 +16,7 @@ async function folderMigrations() {
   return migrationSource(Object.fromEntries(modules));
 }
 
-const USAGE = `Usage: tsx scripts/db.ts migrate | rollback | seed
+const USAGE = `Usage: tsx scripts/db.ts migrate | rollback | seed [--copies N]
        npm run db:backup [-- <backup folder>]
        npm run db:restore -- <backup folder> [--target <data folder>] [--force]`;
 
@@ -66,7 +66,11 @@ async function main(command: string | undefined, args: string[]): Promise<void> 
     }
     case 'seed': {
       await db().migrate.latest({ migrationSource: migrationSourceFromFolder });
+      // --copies N: the demo property and N - 1 copies under numbered names (for bench:load).
+      const copies = args[0] === '--copies' ? Number(args[1]) : 1;
+      if (!Number.isInteger(copies) || copies < 1) throw new Error('--copies takes a whole number of 1 or more.');
       await seedDemo();
+      for (let copy = 2; copy <= copies; copy += 1) await seedDemo(`Saltbush Rise (copy ${copy})`);
       break;
     }
     case 'backup':

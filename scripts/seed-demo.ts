@@ -25,8 +25,13 @@ type Manifest = {
   files: Record<string, string>;
 };
 
-export async function seedDemo(): Promise<void> {
+/**
+ * Loads the demo property; `name` loads a copy under another name (the load benchmark holds
+ * several, as a hosted service holds many properties).
+ */
+export async function seedDemo(name?: string): Promise<void> {
   const manifest = JSON.parse(readFileSync('data-samples/saltbush-rise.json', 'utf8')) as Manifest;
+  if (name) manifest.name = name;
   const passwordHash = await hashPassword(DEMO_PASSWORD);
   const ids: number[] = [];
   for (const account of DEMO_ACCOUNTS) {

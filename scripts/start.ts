@@ -7,7 +7,7 @@ import { getConfig } from '../src/lib/server/config';
 import { startMailCatcher } from '../src/lib/server/mail-catcher';
 import { DEMO_ACCOUNTS, DEMO_PASSWORD } from './demo-accounts';
 
-const ENTRY = 'dist/server/entry.mjs';
+const ENTRY = 'dist/server/serve.mjs';
 
 async function run(command: string, args: string[]): Promise<void> {
   await new Promise<void>((resolve, reject) => {

@@ -5,6 +5,7 @@ import { ensureReady } from './lib/server/startup';
 import { DomainError, PayloadTooLargeError, UnauthorizedError, errorResponse, internalErrorResponse } from './lib/server/http';
 import { limitExpensiveRequests } from './lib/server/request-limit';
 import { loadSessionUser, renewedSessionCookie } from './lib/server/session';
+import { SECURITY_HEADERS } from './lib/server/security-headers';
 import { throttleSignIn } from './lib/server/sign-in-throttle';
 
 const isApi = (path: string) => path === '/api' || path.startsWith('/api/');
@@ -45,29 +46,10 @@ const answerErrors = defineMiddleware(async (context, next) => {
 /** Big text answers (drainage lines, plan exports) go gzip-compressed to clients that take it. */
 const compressAnswers = defineMiddleware(async (context, next) => compressAnswer(context.request, await next()));
 
-/** Headers every answer carries: nothing is loaded from or framed by another host. */
+/** Headers every answer carries (security-headers.ts; http-server.ts sets them on the client's files). */
 const setSecurityHeaders = defineMiddleware(async (_context, next) => {
   const response = await next();
-  const headers = response.headers;
-  headers.set('X-Content-Type-Options', 'nosniff');
-  headers.set('Referrer-Policy', 'same-origin');
-  headers.set(
-    'Content-Security-Policy',
-    [
-      "default-src 'self'",
-      // Astro's island loader is an inline script; MapLibre starts its workers from blob: URLs.
-      "script-src 'self' 'unsafe-inline'",
-      "worker-src 'self' blob:",
-      "style-src 'self' 'unsafe-inline'",
-      "img-src 'self' data: blob:",
-      "font-src 'self'",
-      "connect-src 'self'",
-      "frame-ancestors 'none'",
-      "form-action 'self'",
-      "base-uri 'self'",
-      "object-src 'none'",
-    ].join('; '),
-  );
+  for (const [name, value] of Object.entries(SECURITY_HEADERS)) response.headers.set(name, value);
   return response;
 });
 

@@ -1,3 +1,5 @@
+import { readdirSync } from 'node:fs';
+import { get } from 'node:http';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { TestClient, closeServerDb, rowCounts, serverDb, signedInClient } from '../helpers/api-client';
 
@@ -104,8 +106,26 @@ describe('errors', () => {
     expect(response.headers.get('location')).toMatch(/\/sign-in\?callbackUrl=%2Fapp%2Fproperties%2F1$/);
   });
 
-  it('sets the security headers on every answer', async () => {
-    for (const route of ['/', '/api/health', '/sign-in']) {
+  it('sends the built client\'s files: bundles cached for a year and answered 304 to their ETag; a missing one gets the 404 page, a bad address 400', async () => {
+    const bundle = readdirSync('dist/client/_astro').find((name) => name.endsWith('.js'))!;
+    const first = await new TestClient().request('GET', `/_astro/${bundle}`);
+    expect(first.status).toBe(200);
+    expect(first.headers.get('content-type')).toMatch(/javascript/);
+    expect(first.headers.get('cache-control')).toBe('public, max-age=31536000, immutable');
+    // node:http, as a browser revalidating its cache does (fetch adds Cache-Control: no-cache to a conditional request).
+    const again = await new Promise<number>((resolve, reject) =>
+      get(new URL(`/_astro/${bundle}`, first.url), { headers: { 'If-None-Match': first.headers.get('etag')! } }, (answer) => resolve(answer.resume().statusCode!)).on('error', reject),
+    );
+    expect(again).toBe(304);
+    const missing = await new TestClient().request('GET', '/_astro/no-such-file.js');
+    expect(missing.status).toBe(404);
+    expect(missing.headers.get('content-type')).toMatch(/text\/html/);
+    expect((await new TestClient().request('GET', '/%E0%A4%A')).status).toBe(400);
+  });
+
+  it('sets the security headers on every answer: pages, API answers, the client\'s files, a refused address', async () => {
+    const bundle = readdirSync('dist/client/_astro').find((name) => name.endsWith('.js'))!;
+    for (const route of ['/', '/api/health', '/sign-in', '/favicon.svg', `/_astro/${bundle}`, '/_astro/no-such-file.js', '/%E0%A4%A']) {
       const response = await new TestClient().request('GET', route);
       expect(response.headers.get('x-content-type-options')).toBe('nosniff');
       expect(response.headers.get('content-security-policy')).toMatch(/frame-ancestors 'none'/);

@@ -13,7 +13,7 @@ declare module 'vitest' {
   }
 }
 
-const ENTRY = 'dist/server/entry.mjs';
+const ENTRY = 'dist/server/serve.mjs';
 
 
 /**

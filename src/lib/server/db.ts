@@ -1,5 +1,6 @@
 import { mkdirSync } from 'node:fs';
 import path from 'node:path';
+import type BetterSqlite3 from 'better-sqlite3';
 import knex, { type Knex } from 'knex';
 import { getConfig } from './config';
 import { keepPreparedStatements } from './kept-statements';
@@ -41,6 +42,44 @@ let instance: Knex | undefined;
 export function db(): Knex {
   instance ??= knex(sqliteSettings(getConfig().databaseFile));
   return instance;
+}
+
+/** The better-sqlite3 connection under knex, for `writeAtOnce`. */
+export type RawConnection = BetterSqlite3.Database;
+
+/**
+ * Runs `work` as one SQLite transaction on the app's connection, synchronously. Knex awaits every
+ * statement, and a knex transaction holds the one pooled connection across all those awaits: under
+ * load each await waits its turn in the event loop, and meanwhile every other request's query
+ * waits for the connection. Hot multi-statement writes (a fence edit, storing an analysis) go
+ * through here instead: the connection is taken once, the statements run back to back, and it is
+ * given back. A throw rolls the transaction back. `work` must not await.
+ */
+export async function writeAtOnce<T>(work: (connection: RawConnection) => T): Promise<T> {
+  const client = db().client as { acquireConnection(): Promise<RawConnection>; releaseConnection(connection: RawConnection): Promise<unknown> };
+  const connection = await client.acquireConnection();
+  try {
+    return connection.transaction(work)(connection);
+  } finally {
+    await client.releaseConnection(connection);
+  }
+}
+
+/** A value as better-sqlite3 binds it, the way knex passes values (booleans as 0 and 1). */
+export function sqlValue(value: unknown): unknown {
+  return typeof value === 'boolean' ? Number(value) : value === undefined ? null : value;
+}
+
+/** `insert into table (…) values (…)` for the row's defined columns. */
+export function insertRow(connection: RawConnection, table: string, row: Record<string, unknown>): BetterSqlite3.RunResult {
+  const columns = Object.keys(row).filter((column) => row[column] !== undefined);
+  return connection.prepare(`insert into "${table}" (${columns.map((c) => `"${c}"`).join(', ')}) values (${columns.map(() => '?').join(', ')})`).run(...columns.map((c) => sqlValue(row[c])));
+}
+
+/** `update table set … where id = ?` for the row's defined columns. */
+export function updateRowById(connection: RawConnection, table: string, id: number, row: Record<string, unknown>): BetterSqlite3.RunResult {
+  const columns = Object.keys(row).filter((column) => row[column] !== undefined);
+  return connection.prepare(`update "${table}" set ${columns.map((c) => `"${c}" = ?`).join(', ')} where "id" = ?`).run(...columns.map((c) => sqlValue(row[c])), id);
 }
 
 let migrated: Promise<void> | undefined;

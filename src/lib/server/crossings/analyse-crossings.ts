@@ -1,4 +1,4 @@
-import { db } from '../db';
+import { insertRow, updateRowById, writeAtOnce } from '../db';
 import { computeInWorker } from '../jobs/analysis-jobs';
 import { matchingCrossing, type ComputedCrossings } from './compute-crossing-rows';
 
@@ -44,22 +44,22 @@ type Batch = { fenceLineIds: Set<number> | 'all'; result: Promise<{ crossings: n
 const queues = new Map<number, Promise<unknown>>();
 const waiting = new Map<number, Batch>();
 
-async function store({ rows, designed, old }: ComputedCrossings): Promise<{ crossings: number; designed: number }> {
+function store({ rows, designed, old }: ComputedCrossings): Promise<{ crossings: number; designed: number }> {
   const matchOf = (fenceId: number, drainageId: number, chainageM: number) => matchingCrossing(old, fenceId, drainageId, chainageM);
-  await db().transaction(async (trx) => {
+  // One synchronous transaction (db.ts, writeAtOnce): the other requests' queries wait only while it writes.
+  return writeAtOnce((connection) => {
     const kept = new Set<number>();
     for (const row of rows) {
       const match = matchOf(row.fence_line_id as number, row.drainage_line_id as number, row.chainage_m as number);
       if (match && !kept.has(match.id)) {
         kept.add(match.id);
-        await trx('crossings').where({ id: match.id }).update(row);
+        updateRowById(connection, 'crossings', match.id, row);
       } else {
-        await trx('crossings').insert(row);
+        insertRow(connection, 'crossings', row);
       }
     }
     const gone = old.filter((row) => !kept.has(row.id)).map((row) => row.id);
-    if (gone.length) await trx('crossings').whereIn('id', gone).delete();
+    if (gone.length) connection.prepare(`delete from "crossings" where "id" in (${gone.map(() => '?').join(', ')})`).run(...gone);
+    return { crossings: rows.length, designed };
   });
-  return { crossings: rows.length, designed };
 }
-

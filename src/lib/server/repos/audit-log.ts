@@ -40,7 +40,12 @@ type AuditRow = {
 
 /** Records who did what; call inside the transaction that made the change. */
 export async function recordAudit(entry: NewAuditEntry, trx: Knex = db()): Promise<void> {
-  await trx('audit_log').insert({
+  await trx('audit_log').insert(auditRow(entry));
+}
+
+/** The `audit_log` row of an entry (for writes made with `writeAtOnce`, through `insertRow`). */
+export function auditRow(entry: NewAuditEntry): Record<string, unknown> {
+  return {
     property_id: entry.propertyId ?? null,
     user_id: entry.userId ?? null,
     action: entry.action,
@@ -48,7 +53,7 @@ export async function recordAudit(entry: NewAuditEntry, trx: Knex = db()): Promi
     entity_id: entry.entityId == null ? null : String(entry.entityId),
     detail: JSON.stringify(entry.detail ?? {}),
     created_at: new Date().toISOString(),
-  });
+  };
 }
 
 export type AuditFilter = {

@@ -3,9 +3,9 @@ import { boundsOf, lineLengthM } from '../../geo/measure';
 import { fenceLineSchemas, wireSpecSchema, type FenceLine, type FenceLineInput, type FenceStatus } from '../../schemas/plan';
 import { checkFenceLine, cleanFenceLine } from '../../crossings/geometry/fence-checks';
 import { getConfig } from '../config';
-import { db } from '../db';
+import { db, insertRow, sqlValue, writeAtOnce } from '../db';
 import { ConflictError, NotFoundError, ValidationError } from '../http';
-import { recordAudit } from './audit-log';
+import { auditRow, recordAudit } from './audit-log';
 
 type FenceRow = {
   id: number;
@@ -126,26 +126,35 @@ export async function updateFenceLine(
   changes: Partial<FenceLineInput> & { version: number },
   userId: number,
 ): Promise<FenceLine> {
-  return db().transaction(async (trx) => {
-    const current = await getFenceLine(propertyId, id, trx);
-    if (current.version !== changes.version) {
-      throw new ConflictError(`Someone changed "${current.name}" since you opened it (now version ${current.version}). Reload it to see their change, then edit again.`);
-    }
-    const merged = serverFenceLineSchemas().input.parse({ ...current, ...changes });
-    await trx('fence_lines')
-      .where({ id, property_id: propertyId, version: changes.version })
-      .update({
-        name: merged.name,
-        status: merged.status,
-        wire_spec: JSON.stringify(merged.wireSpec),
-        ...geometryColumns(usableFenceCoordinates(merged.coordinates)),
-        version: changes.version + 1,
-        updated_at: new Date().toISOString(),
-      });
-    const { version: _version, ...changed } = changes;
-    await recordAudit({ propertyId, userId, action: 'fence_line.update', entityType: 'fence_line', entityId: id, detail: { fields: Object.keys(changed) } }, trx);
-    return getFenceLine(propertyId, id, trx);
+  const conflict = (version: number, name: string) =>
+    new ConflictError(`Someone changed "${name}" since you opened it (now version ${version}). Reload it to see their change, then edit again.`);
+  const current = await getFenceLine(propertyId, id);
+  if (current.version !== changes.version) throw conflict(current.version, current.name);
+  const merged = serverFenceLineSchemas().input.parse({ ...current, ...changes });
+  const { version: _version, ...changed } = changes;
+  // The update holds only if the version is still the one read; the audit entry goes with it.
+  const saved = await writeAtOnce((connection) => {
+    const row = {
+      name: merged.name,
+      status: merged.status,
+      wire_spec: JSON.stringify(merged.wireSpec),
+      ...geometryColumns(usableFenceCoordinates(merged.coordinates)),
+      version: changes.version + 1,
+      updated_at: new Date().toISOString(),
+    };
+    const columns = Object.keys(row) as (keyof typeof row)[];
+    const result = connection
+      .prepare(`update "fence_lines" set ${columns.map((c) => `"${c}" = ?`).join(', ')} where "id" = ? and "property_id" = ? and "version" = ?`)
+      .run(...columns.map((c) => sqlValue(row[c])), id, propertyId, changes.version);
+    if (result.changes === 0) return false;
+    insertRow(connection, 'audit_log', auditRow({ propertyId, userId, action: 'fence_line.update', entityType: 'fence_line', entityId: id, detail: { fields: Object.keys(changed) } }));
+    return true;
   });
+  if (!saved) {
+    const now = await getFenceLine(propertyId, id);
+    throw conflict(now.version, now.name);
+  }
+  return getFenceLine(propertyId, id);
 }
 
 /**
