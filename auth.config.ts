@@ -5,6 +5,7 @@ import { getConfig } from './src/lib/server/config';
 import { verifyAgainstDecoy, verifyPassword } from './src/lib/server/passwords';
 import { findCredentials } from './src/lib/server/repos/users';
 import { isSessionLive, newSessionId, revokeSession, SESSION_MAX_AGE_S } from './src/lib/server/session';
+import { decodeSession, encodeSession } from './src/lib/server/session-jwt';
 
 // Sign-in by e-mail and password; the session is a signed, encrypted JWT in an HttpOnly,
 // SameSite=Lax cookie (Secure and __Secure- prefixed whenever the app is served over https).
@@ -12,6 +13,8 @@ export default defineConfig({
   secret: getConfig().authSecret,
   trustHost: true,
   session: { strategy: 'jwt', maxAge: SESSION_MAX_AGE_S },
+  // Auth.js's token format, with the key derived once (session-jwt.ts).
+  jwt: { encode: encodeSession, decode: decodeSession },
   pages: { signIn: '/sign-in', error: '/sign-in' },
   // A wrong password is an everyday event, counted by the sign-in throttle: not an error to log.
   logger: {

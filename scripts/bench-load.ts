@@ -12,9 +12,9 @@
  * re-finds its crossings), a plan export and now and then a fresh sign-in (the CSRF token, then
  * the credentials). Prints requests per second, latency p50/p99 for reads and writes, errors and
  * 5xx, and whether the targets are met: no errors, no 5xx, read p99 under 250 ms, write p99 under
- * 500 ms. The mix runs `warm-up` seconds (default 5) before, unmeasured. A second phase uploads
- * the demo elevation model again to every property and measures reads while those terrain runs
- * are in progress (target: read p99 under 500 ms).
+ * 500 ms. The mix runs `warm-up` seconds (default 5) first, on the same connections, unmeasured.
+ * A second phase uploads the demo elevation model again to every property and measures reads
+ * while those terrain runs are in progress (target: read p99 under 500 ms).
  *
  * `--soak` runs the mix for 10 minutes instead, sampling the server's resident memory every 10 s,
  * and prints its growth from the 60 s sample to the last (target: under 10 %). The per-person
@@ -398,9 +398,14 @@ function newestRunOf(answer: unknown): number | null {
   return runs.length ? Math.max(...runs.map((run) => run!.id)) : null;
 }
 
-/** Runs the mix with autocannon for `seconds` (or until the request cap) and returns what it measured. */
-async function runMix(world: World, seconds: number, seed: number, mix: 'full' | 'reads', onTick?: (stats: Stats) => void): Promise<Stats> {
+/**
+ * Runs the mix with autocannon for `warmUpS` seconds unmeasured and then `seconds` measured (or
+ * until the request cap), on the same connections, and returns what it measured.
+ */
+async function runMix(world: World, seconds: number, seed: number, mix: 'full' | 'reads', options: { warmUpS?: number; onTick?: (stats: Stats) => void } = {}): Promise<Stats> {
+  const { warmUpS: unmeasuredS = 0, onTick } = options;
   const stats = newStats();
+  stats.startedAt += unmeasuredS * 1000;
   const random = createMulberry32(seed);
   let finished: Sent | undefined;
   let finish: (error: Error | null, result: autocannon.Result) => void = () => undefined;
@@ -409,7 +414,7 @@ async function runMix(world: World, seconds: number, seed: number, mix: 'full' |
     {
       url: world.baseUrl,
       connections,
-      duration: seconds,
+      duration: unmeasuredS + seconds,
       timeout: REQUEST_TIMEOUT_S,
       requests: [
         {
@@ -427,6 +432,7 @@ async function runMix(world: World, seconds: number, seed: number, mix: 'full' |
   instance.on('response', (_client: unknown, _status: number, _bytes: number, responseTimeMs: number) => {
     const sent = finished;
     finished = undefined;
+    if (performance.now() < stats.startedAt) return;
     stats.requests += 1;
     if (!sent) return;
     const us = Math.max(1, Math.round(responseTimeMs * 1000));
@@ -612,20 +618,20 @@ async function main(): Promise<void> {
     console.log(
       `${world.properties.length} copies of the demo property: ${crossingCount} crossings, ${world.fences.length} fence lines for edits; ` +
         `${world.readers.length} sessions of ${DEMO_ACCOUNTS.length} accounts; ${connections} connections (autocannon), ${durationS} s, at most ${maxRequests} requests. ` +
-        `Server RSS ${rssMb(pid).toFixed(0)} MB.`,
+        `Server at ${started.baseUrl}, RSS ${rssMb(pid).toFixed(0)} MB.`,
     );
 
-    // A few seconds of the same mix first, not measured, as benchmarks do: Astro loads each route's
-    // code on its first request, V8 compiles the hot paths, the kept answers fill.
-    await runMix(world, warmUpS, 1, 'full');
-    await settle(world);
-
-    // Main phase (or soak).
+    // Main phase (or soak), after a few seconds of the same mix on the same connections, not
+    // measured, as benchmarks do: Astro loads each route's code on its first request, V8 compiles
+    // the hot paths, the kept answers fill.
     const samples: number[] = [];
-    const t0 = performance.now();
+    const t0 = performance.now() + warmUpS * 1000;
     const sampler = setInterval(() => samples.push(rssMb(pid)), 10_000);
-    const stats = await runMix(world, durationS, 1000, 'full', (running) => {
-      if (soak) console.log(`  ${((performance.now() - t0) / 1000).toFixed(0).padStart(4)} s  RSS ${samples.at(-1)?.toFixed(0) ?? '—'} MB, ${running.requests} requests`);
+    const stats = await runMix(world, durationS, 1000, 'full', {
+      warmUpS,
+      onTick: (running) => {
+        if (soak) console.log(`  ${((performance.now() - t0) / 1000).toFixed(0).padStart(4)} s  RSS ${samples.at(-1)?.toFixed(0) ?? '—'} MB, ${running.requests} requests`);
+      },
     });
     clearInterval(sampler);
     const main = report(soak ? `Soak: ${durationS} s` : `Mixed load: ${durationS} s`, stats, (performance.now() - t0) / 1000);
@@ -659,8 +665,8 @@ async function main(): Promise<void> {
       let busySamples = 0;
       let idleSamples = 0;
       const watcher = setInterval(() => (terrainBusy(dataDir) ? (busySamples += 1) : (idleSamples += 1)), 500);
-      const t1 = performance.now();
-      const terrainStats = await runMix(world, terrainPhaseS, 5000, 'reads');
+      const t1 = performance.now() + Math.min(warmUpS, 3) * 1000;
+      const terrainStats = await runMix(world, terrainPhaseS, 5000, 'reads', { warmUpS: Math.min(warmUpS, 3) });
       clearInterval(watcher);
       const during = report(`Reads while terrain runs are in progress: ${terrainPhaseS} s`, terrainStats, (performance.now() - t1) / 1000);
       const share = busySamples / Math.max(1, busySamples + idleSamples);

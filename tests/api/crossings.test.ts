@@ -247,3 +247,28 @@ describe('a burst of fence edits', () => {
     expect((await crossings()).map(place).sort()).toEqual(afterBurst);
   });
 });
+
+describe('a crossing\'s full design, kept between reads', () => {
+  it('follows a new name of its fence line, new prices and new inputs at once', async () => {
+    type Detail = { crossing: { fenceName: string; inputs: { floodMarkM?: number | null }; design: { comparison?: { sides: { cost?: { materialsCents: number } }[] } } } };
+    const { id, fenceLineId } = (await constructedCrossing('North cross fence')).properties;
+    const route = `/api/properties/${propertyId}/crossings/${id}`;
+    const first = (await manager.json<Detail>('GET', route)).body.crossing;
+    expect((await manager.json<Detail>('GET', route)).body.crossing).toEqual(first);
+
+    const fence = (await manager.json<{ fenceLine: { version: number } }>('GET', `/api/properties/${propertyId}/fence-lines/${fenceLineId}`)).body.fenceLine;
+    expect((await manager.json('PATCH', `/api/properties/${propertyId}/fence-lines/${fenceLineId}`, { version: fence.version, name: 'North cross fence (renamed)' })).status).toBe(200);
+    const renamed = (await manager.json<Detail>('GET', route)).body.crossing;
+    expect(renamed.fenceName).toBe('North cross fence (renamed)');
+
+    const settings = (await manager.json<{ settings: { version: number; priceList: { unitPriceCents: number }[] } }>('GET', `/api/properties/${propertyId}/settings`)).body.settings;
+    const doubled = settings.priceList.map((item) => ({ ...item, unitPriceCents: item.unitPriceCents * 2 }));
+    expect((await manager.json('PATCH', `/api/properties/${propertyId}/settings`, { version: settings.version, priceList: doubled })).status).toBe(200);
+    const repriced = (await manager.json<Detail>('GET', route)).body.crossing;
+    const materials = (detail: typeof first) => detail.design.comparison!.sides.map((side) => side.cost!.materialsCents);
+    expect(materials(repriced)).toEqual(materials(renamed).map((cents) => cents * 2));
+
+    expect((await manager.json('PATCH', route, { floodMarkM: 1.2 })).status).toBe(200);
+    expect((await manager.json<Detail>('GET', route)).body.crossing.inputs.floodMarkM).toBe(1.2);
+  });
+});

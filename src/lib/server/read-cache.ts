@@ -13,7 +13,7 @@ const BUDGET_BYTES = 64 * 1024 * 1024;
 /** Answers smaller than this are sent as they are (as compressAnswer does). */
 const GZIP_MIN_BYTES = 8 * 1024;
 
-type Entry = { stamp: number; value: unknown; bytes: number };
+type Entry = { stamp: number | string; value: unknown; bytes: number };
 const entries = new Map<string, Entry>();
 let usedBytes = 0;
 
@@ -36,7 +36,7 @@ function remember(key: string, entry: Entry): void {
   }
 }
 
-function recall(key: string, stamp: number): Entry | undefined {
+function recall(key: string, stamp: number | string): Entry | undefined {
   const entry = entries.get(key);
   if (!entry || entry.stamp !== stamp) return undefined;
   // Most recently used last, so eviction takes the oldest first.
@@ -66,14 +66,30 @@ export async function keptValue<T>(key: string, propertyId: number, which: ReadG
  * JSON and compression on every call.
  */
 export async function keptJsonAnswer(request: Request, key: string, propertyId: number, which: ReadGeneration, contentType: string, compute: () => Promise<unknown>): Promise<Response> {
-  const kept = await keptValue(
-    `json:${key}`,
-    propertyId,
-    which,
-    async (): Promise<KeptJson> => ({ body: Buffer.from(JSON.stringify(await compute())) as Buffer<ArrayBuffer> }),
-    // The gzip made later is about a third of the body or less: count it now.
-    ({ body }) => Math.ceil(body.byteLength * 1.35),
-  );
+  const kept = await keptValue(`json:${key}`, propertyId, which, async () => keptJsonOf(await compute()), keptJsonBytes);
+  return answerWith(request, kept, contentType);
+}
+
+/**
+ * A JSON answer kept as `keptJsonAnswer` keeps one, but checked against a stamp the caller read
+ * (say, the versions of the rows it is made of) instead of a property's counter. Read the stamp
+ * before computing, for the same reason as there.
+ */
+export async function keptJsonAnswerAt(request: Request, key: string, stamp: string, contentType: string, compute: () => Promise<unknown>): Promise<Response> {
+  const fullKey = `json:${key}`;
+  let kept = recall(fullKey, stamp)?.value as KeptJson | undefined;
+  if (!kept) {
+    kept = keptJsonOf(await compute());
+    remember(fullKey, { stamp, value: kept, bytes: keptJsonBytes(kept) });
+  }
+  return answerWith(request, kept, contentType);
+}
+
+const keptJsonOf = (value: unknown): KeptJson => ({ body: Buffer.from(JSON.stringify(value)) as Buffer<ArrayBuffer> });
+// The gzip made later is about a third of the body or less: count it now.
+const keptJsonBytes = ({ body }: KeptJson) => Math.ceil(body.byteLength * 1.35);
+
+async function answerWith(request: Request, kept: KeptJson, contentType: string): Promise<Response> {
   const headers = new Headers({ 'Content-Type': contentType, Vary: 'Accept-Encoding' });
   if (kept.body.byteLength < GZIP_MIN_BYTES || !/\bgzip\b/i.test(request.headers.get('Accept-Encoding') ?? '')) return new Response(kept.body, { headers });
   kept.gzipped ??= gzipAsync(kept.body, { level: 6 }) as Promise<Buffer<ArrayBuffer>>;

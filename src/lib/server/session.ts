@@ -1,9 +1,10 @@
 import { randomUUID } from 'node:crypto';
-import { decode, encode, getToken } from '@auth/core/jwt';
+import { getToken } from '@auth/core/jwt';
 import type { Knex } from 'knex';
 import type { SessionUser } from '../../env';
 import { getConfig } from './config';
 import { db } from './db';
+import { decodeSession, encodeSession } from './session-jwt';
 
 const SECURE_COOKIE = '__Secure-authjs.session-token';
 const PLAIN_COOKIE = 'authjs.session-token';
@@ -15,8 +16,9 @@ const RENEW_AFTER_S = 24 * 60 * 60;
 
 /**
  * The signed-in user behind a request, or null: the session cookie decrypted and checked (expiry,
- * not signed out, the account still there). This reads the cookie directly with Auth.js's own
- * `getToken`/`decode` rather than running the whole Auth.js session handler on every request.
+ * not signed out, the account still there). This reads the cookie directly (Auth.js's `getToken`,
+ * then `decodeSession`, in its format) rather than running the whole Auth.js session handler on
+ * every request.
  */
 export async function loadSessionUser(request: Request): Promise<SessionUser | null> {
   const token = await sessionTokenOf(request);
@@ -48,7 +50,7 @@ async function sessionTokenOf(request: Request): Promise<SessionToken | null> {
   if (known && known.until > now) return tokenStillValid(known.token, now) ? known.token : null;
   let token: SessionToken | null;
   try {
-    token = (await decode({ token: raw, secret, salt: secureCookie ? SECURE_COOKIE : PLAIN_COOKIE })) as SessionToken | null;
+    token = (await decodeSession({ token: raw, secret, salt: secureCookie ? SECURE_COOKIE : PLAIN_COOKIE })) as SessionToken | null;
   } catch {
     token = null; // tampered, signed with another secret, or expired: signed out
   }
@@ -69,7 +71,7 @@ export async function renewedSessionCookie(request: Request, now = Date.now()): 
   const secureCookie = (request.headers.get('cookie') ?? '').includes(SECURE_COOKIE);
   const name = secureCookie ? SECURE_COOKIE : PLAIN_COOKIE;
   const { iat: _iat, exp: _exp, jti: _jti, ...kept } = token as Record<string, unknown>;
-  const value = await encode({ token: kept, secret: getConfig().authSecret, salt: name, maxAge: SESSION_MAX_AGE_S });
+  const value = await encodeSession({ token: kept, secret: getConfig().authSecret, salt: name, maxAge: SESSION_MAX_AGE_S });
   return `${name}=${value}; Path=/; Max-Age=${SESSION_MAX_AGE_S}; HttpOnly; SameSite=Lax${secureCookie ? '; Secure' : ''}`;
 }
 

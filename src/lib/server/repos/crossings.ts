@@ -118,6 +118,22 @@ export async function listCrossingsWithDesignText(propertyId: number, trx: Knex 
   return rows.map((row) => ({ ...rowToSummary(row, figuresOfRow(row)), designText: row.design }));
 }
 
+/**
+ * What one crossing's full design answer is made of, as a stamp that changes whenever it does: the
+ * crossing's row version (moved by a trigger), its fence line's version (the name) and the property
+ * settings' version (prices). Read from indexes, without the stored design.
+ * @throws NotFoundError (also for another property's crossing)
+ */
+export async function crossingStamp(propertyId: number, id: number, trx: Knex = db()): Promise<string> {
+  const row = (await trx('crossings as c')
+    .join('fence_lines as f', 'f.id', 'c.fence_line_id')
+    .leftJoin('property_settings as s', 's.property_id', 'c.property_id')
+    .where({ 'c.id': id, 'c.property_id': propertyId })
+    .first('c.row_version', 'f.version as fence_version', 's.version as settings_version')) as { row_version: number; fence_version: number; settings_version: number | null } | undefined;
+  if (!row) throw new NotFoundError('crossing');
+  return `${row.row_version}:${row.fence_version}:${row.settings_version ?? 0}`;
+}
+
 /** One crossing with its inputs and full design. @throws NotFoundError (also for another property's crossing) */
 export async function getCrossing(propertyId: number, id: number, trx: Knex = db()) {
   const row = await selectRows(trx).where({ 'c.id': id, 'c.property_id': propertyId }).first();

@@ -3,11 +3,16 @@ import { z } from 'zod';
 import { requireRole } from '../../../../../../lib/server/auth';
 import { changeCrossingInputs, crossingDetail } from '../../../../../../lib/server/crossings/crossing-service';
 import { parseId, readJson } from '../../../../../../lib/server/http';
+import { keptJsonAnswerAt } from '../../../../../../lib/server/read-cache';
+import { crossingStamp } from '../../../../../../lib/server/repos/crossings';
 
 /** One crossing's full design: profile, floods, layout with reasons, wire check, loads, materials, both styles compared and priced, cautions. */
-export const GET: APIRoute = async ({ locals, params }) => {
+export const GET: APIRoute = async ({ locals, params, request }) => {
   const { propertyId } = await requireRole(locals, params.id, 'viewer');
-  return Response.json({ crossing: await crossingDetail(propertyId, parseId(params.crossingId, 'crossing')) });
+  const crossingId = parseId(params.crossingId, 'crossing');
+  // Kept until the crossing, its fence line or the property's prices change (read-cache.ts).
+  const stamp = await crossingStamp(propertyId, crossingId);
+  return keptJsonAnswerAt(request, `crossing:${propertyId}:${crossingId}`, stamp, 'application/json', async () => ({ crossing: await crossingDetail(propertyId, crossingId) }));
 };
 
 /** Sets the crossing's inputs (flood mark, n, C, AEP, freeboard, style; null to clear) and designs it again. */
