@@ -1,9 +1,10 @@
 // The server killed with SIGKILL (no chance to tidy up) during a terrain run with an upload still
-// arriving, during a burst of fence line edits and part way through a plan import; started again on
+// arriving, during a burst of fence line edits, part way through a plan import and during a photo
+// upload; started again on
 // the same data folder, the database is whole, every edit it acknowledged is there, no row is
 // half-written, a plan is stored whole or not at all, every file under the data folder belongs to
 // a row, and the interrupted run reads as failed with the reason.
-import { existsSync, mkdtempSync, readdirSync, readFileSync, rmSync } from 'node:fs';
+import { existsSync, mkdirSync, mkdtempSync, readdirSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { request as httpRequest } from 'node:http';
 import { tmpdir } from 'node:os';
 import path from 'node:path';
@@ -68,13 +69,13 @@ async function waitForRun(runId: number, done: (run: Run) => boolean, timeoutMs:
 }
 
 /** Sends the first half of an upload and never the rest, so the server is receiving a file when killed. */
-function halfUpload(): Promise<void> {
-  const url = new URL(`${server!.baseUrl}/api/properties/${propertyId}/elevation-models?name=half.tif`);
+function halfUpload(route = `/api/properties/${propertyId}/elevation-models?name=half.tif`, contentType = 'image/tiff', body: Uint8Array = DEM): Promise<void> {
+  const url = new URL(`${server!.baseUrl}${route}`);
   const cookie = [...(client as unknown as { cookies: Map<string, string> }).cookies].map(([name, value]) => `${name}=${value}`).join('; ');
   return new Promise((resolve) => {
-    const request = httpRequest(url, { method: 'POST', headers: { Cookie: cookie, Origin: server!.baseUrl, 'Content-Type': 'image/tiff', 'Content-Length': DEM.length } });
+    const request = httpRequest(url, { method: 'POST', headers: { Cookie: cookie, Origin: server!.baseUrl, 'Content-Type': contentType, 'Content-Length': body.length } });
     request.on('error', () => undefined);
-    request.write(DEM.subarray(0, DEM.length / 2), () => resolve());
+    request.write(body.subarray(0, body.length / 2), () => resolve());
   });
 }
 
@@ -82,6 +83,8 @@ function halfUpload(): Promise<void> {
 async function orphanFiles(database: Knex): Promise<string[]> {
   const list = (relative: string) => (existsSync(path.join(dataDir, relative)) ? readdirSync(path.join(dataDir, relative)) : []);
   const orphans = list('uploads/incoming').map((name) => `uploads/incoming/${name}`);
+  const photos = new Set((await database('inspection_photos').select('storage_key', 'thumbnail_key')).flatMap((row: { storage_key: string; thumbnail_key: string }) => [row.storage_key, row.thumbnail_key]));
+  for (const folder of list('photos')) for (const name of list(`photos/${folder}`)) if (!photos.has(`photos/${folder}/${name}`)) orphans.push(`photos/${folder}/${name}`);
   const models = await database('elevation_models').select('id', 'stored_file');
   for (const name of list('elevation-models')) {
     const model = models.find((m: { id: number }) => String(m.id) === name);
@@ -264,5 +267,41 @@ describe('killed during a plan import', () => {
       expect(Number(audit[0]!.n)).toBe(count === 40 ? 1 : 0);
       expect(await orphanFiles(database)).toEqual([]);
     });
+  }, 120_000);
+});
+
+describe('killed during a photo upload', () => {
+  it('keeps no photo row and no photo file without its row: neither the half-received upload nor one stored but never committed', async () => {
+    // A check to photograph, straight into the database (the crossing is not needed for photos).
+    const checkId = await withDatabase(async (database) => {
+      const now = new Date().toISOString();
+      const [event] = await database('rain_events').insert({ property_id: propertyId, fell_on: '2026-12-01', rainfall_mm: 90, scope: 'property', created_at: now }).returning('id');
+      const [round] = await database('inspection_rounds').insert({ property_id: propertyId, rain_event_id: (event as { id: number }).id, created_at: now }).returning('id');
+      const [check] = await database('inspection_checks')
+        .insert({ property_id: propertyId, round_id: (round as { id: number }).id, position: 1, crossing_label: 'Crossing 1', selected_by: 'property' })
+        .returning('id');
+      return (check as { id: number }).id;
+    });
+    const boundary = 'gullyline-crash-photo';
+    const form = Buffer.concat([
+      Buffer.from(`--${boundary}\r\nContent-Disposition: form-data; name="checkId"\r\n\r\n${checkId}\r\n--${boundary}\r\nContent-Disposition: form-data; name="photo"; filename="creek.jpg"\r\nContent-Type: image/jpeg\r\n\r\n`),
+      Buffer.alloc(400_000, 7),
+      Buffer.from(`\r\n--${boundary}--\r\n`),
+    ]);
+    await halfUpload(`/api/properties/${propertyId}/photos`, `multipart/form-data; boundary=${boundary}`, new Uint8Array(form));
+    // What a kill between writing a photo's two objects and committing its row leaves behind.
+    const folder = path.join(dataDir, 'photos', String(propertyId));
+    mkdirSync(folder, { recursive: true });
+    for (const name of ['0b9d6c2e-stored-not-committed.jpg', '0b9d6c2e-stored-not-committed-thumb.jpg', '.1f2e3d4c-half-written.part']) writeFileSync(path.join(folder, name), 'x');
+    await new Promise((resolve) => setTimeout(resolve, 200));
+    await kill();
+
+    await start();
+    await withDatabase(async (database) => {
+      expect(await integrity(database)).toBe('ok');
+      expect(await database('inspection_photos').where({ check_id: checkId }).count<{ n: number }[]>({ n: '*' })).toEqual([{ n: 0 }]);
+      expect(await orphanFiles(database)).toEqual([]);
+    });
+    expect(readdirSync(folder)).toEqual([]);
   }, 120_000);
 });

@@ -1,5 +1,6 @@
 import { readdir } from 'node:fs/promises';
 import { db } from './db';
+import { photoStore } from './photo-storage';
 import { dataPath, removeQuietly } from './storage';
 
 /**
@@ -8,8 +9,9 @@ import { dataPath, removeQuietly } from './storage';
  * accepted; a model folder without its row was moved in by a transaction that never committed;
  * a run folder without a run, or of a run that failed or was cancelled, holds no product the app
  * reads. Runs still marked running are not touched here (recovery marks them failed and removes
- * their folders).
- * @returns how many files or folders were removed
+ * their folders). Photos (in the data folder or an S3 bucket) that no row names were stored by an
+ * upload killed before its row was committed.
+ * @returns how many files, folders or photos were removed
  */
 export async function removeLeftoverFiles(): Promise<number> {
   let removed = 0;
@@ -26,6 +28,19 @@ export async function removeLeftoverFiles(): Promise<number> {
   for (const name of await entries('terrain-runs')) {
     const status = runs.get(name);
     if (status === undefined || status === 'failed' || status === 'cancelled') await drop(`terrain-runs/${name}`);
+  }
+
+  const store = photoStore();
+  const owned = new Set((await db()('inspection_photos').select('storage_key', 'thumbnail_key')).flatMap((row: { storage_key: string; thumbnail_key: string }) => [row.storage_key, row.thumbnail_key]));
+  try {
+    for (const key of await store.keys()) {
+      if (owned.has(key)) continue;
+      await store.remove(key);
+      removed += 1;
+    }
+  } catch (error) {
+    // An unreachable bucket must not stop the server: the next start tries again.
+    console.error(`[gullyline] could not look for leftover photos (${store.kind}):`, error);
   }
   return removed;
 }

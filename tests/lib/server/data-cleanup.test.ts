@@ -57,4 +57,23 @@ describe('removeLeftoverFiles', () => {
     expect(exists('backups/2026-12-02T10-15-30Z/manifest.json')).toBe(true);
     expect(await removeLeftoverFiles()).toBe(0);
   });
+
+  it('removes photos no row names (stored by an upload killed before its row), and keeps the others', async () => {
+    const userId = (await db()('users').first('id')).id as number;
+    const now = new Date().toISOString();
+    const [event] = await db()('rain_events').insert({ property_id: propertyId, fell_on: '2026-12-01', rainfall_mm: 80, scope: 'property', created_at: now }).returning('id');
+    const [round] = await db()('inspection_rounds').insert({ property_id: propertyId, rain_event_id: (event as { id: number }).id, created_at: now }).returning('id');
+    const [check] = await db()('inspection_checks')
+      .insert({ property_id: propertyId, round_id: (round as { id: number }).id, position: 1, crossing_label: 'Check 1', selected_by: 'property' })
+      .returning('id');
+    const owned = { storage_key: `photos/${propertyId}/owned-0000-0001.jpg`, thumbnail_key: `photos/${propertyId}/owned-0000-0001-thumb.jpg` };
+    await db()('inspection_photos').insert({
+      ...owned, property_id: propertyId, check_id: (check as { id: number }).id, content_type: 'image/jpeg', size_bytes: 1, width: 1, height: 1, uploaded_by: userId, created_at: now,
+    });
+    for (const key of [owned.storage_key, owned.thumbnail_key, `photos/${propertyId}/orphan-0000-0002.jpg`, `photos/${propertyId}/orphan-0000-0002-thumb.jpg`]) file(key);
+    file(`photos/${propertyId}/.0c1d-half.part`);
+
+    expect(await removeLeftoverFiles()).toBe(2);
+    expect(readdirSync(path.join(getConfig().dataDir, `photos/${propertyId}`)).sort()).toEqual(['owned-0000-0001-thumb.jpg', 'owned-0000-0001.jpg']);
+  });
 });

@@ -1,7 +1,7 @@
 import { randomUUID } from 'node:crypto';
-import { open, readFile, rename, rm, mkdir } from 'node:fs/promises';
+import { open, readdir, readFile, rename, rm, mkdir } from 'node:fs/promises';
 import path from 'node:path';
-import { checkPhotoKey, type PhotoStore } from './photo-store';
+import { checkPhotoKey, isPhotoKey, type PhotoStore } from './photo-store';
 
 /**
  * Photos as files under a root folder (DATA_DIR). A write goes to a temporary file that is
@@ -48,5 +48,24 @@ export function localDiskStore(root: string): PhotoStore {
     async remove(key) {
       await rm(fileOf(key), { force: true });
     },
+    async keys() {
+      const keys: string[] = [];
+      for (const property of await namesIn(path.join(root, 'photos'))) {
+        for (const name of await namesIn(path.join(root, 'photos', property))) {
+          const key = `photos/${property}/${name}`;
+          if (isPhotoKey(key)) keys.push(key);
+          else if (name.endsWith('.part')) await rm(path.join(root, 'photos', property, name), { force: true });
+        }
+      }
+      return keys;
+    },
   };
+}
+
+async function namesIn(folder: string): Promise<string[]> {
+  try {
+    return await readdir(folder);
+  } catch {
+    return [];
+  }
 }

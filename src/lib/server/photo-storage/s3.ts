@@ -1,6 +1,6 @@
-import { DeleteObjectCommand, GetObjectCommand, NoSuchKey, PutObjectCommand, S3Client } from '@aws-sdk/client-s3';
+import { DeleteObjectCommand, GetObjectCommand, ListObjectsV2Command, NoSuchKey, PutObjectCommand, S3Client } from '@aws-sdk/client-s3';
 import type { PhotoS3Config } from '../config';
-import { checkPhotoKey, type PhotoStore } from './photo-store';
+import { checkPhotoKey, isPhotoKey, type PhotoStore } from './photo-store';
 
 /**
  * Photos in an S3 bucket (or anything speaking its API: an endpoint and path-style addressing
@@ -30,6 +30,16 @@ export function s3Store(config: PhotoS3Config): PhotoStore {
     },
     async remove(key) {
       await client.send(new DeleteObjectCommand({ Bucket, Key: checkPhotoKey(key) }));
+    },
+    async keys() {
+      const keys: string[] = [];
+      let ContinuationToken: string | undefined;
+      do {
+        const page = await client.send(new ListObjectsV2Command({ Bucket, Prefix: 'photos/', ContinuationToken }));
+        for (const object of page.Contents ?? []) if (object.Key && isPhotoKey(object.Key)) keys.push(object.Key);
+        ContinuationToken = page.IsTruncated ? page.NextContinuationToken : undefined;
+      } while (ContinuationToken);
+      return keys;
     },
   };
 }

@@ -28,6 +28,9 @@ function memoryStore(onPut?: (key: string, count: number) => Promise<void>) {
     async remove(key) {
       objects.delete(key);
     },
+    async keys() {
+      return [...objects.keys()];
+    },
   };
   return { store, objects };
 }

@@ -1,6 +1,6 @@
 // One contract for every photo store: the local disk store and the S3 store against s3rver, the
 // local S3 fake (s3rver 3.7.1, started here on a free loopback port over a temporary folder).
-import { mkdtempSync, readdirSync, rmSync } from 'node:fs';
+import { mkdtempSync, readdirSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import path from 'node:path';
 import S3rver from 's3rver';
@@ -63,6 +63,15 @@ describe.each(stores)('photo store: %s', (_name, make) => {
     expect([...(await store.get(key))!]).toEqual([4, 5]);
   });
 
+  it('lists the photo keys it holds (the start-up cleanup compares them with the rows)', async () => {
+    const store = make();
+    const keys = ['photos/21/listed-aaaa-0001.jpg', 'photos/22/listed-aaaa-0002.png'];
+    for (const key of keys) await store.put(key, new Uint8Array([1]), 'image/jpeg');
+    expect(await store.keys()).toEqual(expect.arrayContaining(keys));
+    await store.remove(keys[0]!);
+    expect(await store.keys()).not.toContain(keys[0]);
+  });
+
   it('refuses keys it did not make: folder climbs, absolute paths, other extensions', async () => {
     const store = make();
     for (const key of ['../../etc/passwd', '/tmp/x.jpg', 'photos/1/../../x.jpg', 'photos/1/abcdefgh.exe', 'photos/x/abcdefgh.jpg']) {
@@ -78,5 +87,14 @@ describe('local disk store', () => {
     const store = localDiskStore(root);
     await store.put('photos/3/tidy-0000-1111.jpg', new Uint8Array([9, 9, 9]), 'image/jpeg');
     expect(readdirSync(path.join(root, 'photos', '3'))).toEqual(['tidy-0000-1111.jpg']);
+  });
+
+  it('removes, when listing at start-up, the temporary file of a write a killed process never finished', async () => {
+    const root = tempFolder();
+    const store = localDiskStore(root);
+    await store.put('photos/3/whole-0000-1111.jpg', new Uint8Array([9]), 'image/jpeg');
+    writeFileSync(path.join(root, 'photos', '3', '.5b0e2c1a-half.part'), 'half a photo');
+    expect(await store.keys()).toEqual(['photos/3/whole-0000-1111.jpg']);
+    expect(readdirSync(path.join(root, 'photos', '3'))).toEqual(['whole-0000-1111.jpg']);
   });
 });
