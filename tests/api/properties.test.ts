@@ -121,6 +121,12 @@ describe('errors', () => {
     expect(missing.status).toBe(404);
     expect(missing.headers.get('content-type')).toMatch(/text\/html/);
     expect((await new TestClient().request('GET', '/%E0%A4%A')).status).toBe(400);
+    // A path climbing out of the client folder gets no file (send refuses it).
+    for (const climb of ['/_astro/%2e%2e/%2e%2e/package.json', '/glyphs/%2e%2e%2f%2e%2e%2fserver%2fentry.mjs', '/_astro/%252e%252e/%252e%252e/package.json']) {
+      const answer = await new TestClient().request('GET', climb);
+      expect(answer.status, climb).not.toBe(200);
+      expect(await answer.text(), climb).not.toMatch(/"name": "gullyline"|serverEntrypointModule|pageMap/);
+    }
   });
 
   it('sets the security headers on every answer: pages, API answers, the client\'s files, a refused address', async () => {

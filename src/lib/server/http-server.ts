@@ -18,10 +18,10 @@ export type AppHandler = (request: IncomingMessage, response: ServerResponse) =>
 export function createAppServer(app: AppHandler, clientDir: string, env: NodeJS.ProcessEnv = process.env): http.Server {
   const staticNames = new Set(existsSync(clientDir) ? readdirSync(clientDir) : []);
   const listener = (request: IncomingMessage, response: ServerResponse) => {
-    const url = request.url ?? '/';
+    const rawPath = (request.url ?? '/').split(/[?#]/, 1)[0]!;
     let pathname: string;
     try {
-      pathname = decodeURI(url.split(/[?#]/, 1)[0]!);
+      pathname = decodeURI(rawPath);
     } catch {
       response.writeHead(400, { ...SECURITY_HEADERS, 'Content-Type': 'text/plain; charset=utf-8' });
       response.end('Bad request: the address is not valid.');
@@ -32,7 +32,8 @@ export function createAppServer(app: AppHandler, clientDir: string, env: NodeJS.
       void app(request, response);
       return;
     }
-    const file = send(request, pathname, { root: clientDir, dotfiles: 'deny', index: false });
+    // send decodes the path itself (and refuses one climbing out of the folder).
+    const file = send(request, rawPath, { root: clientDir, dotfiles: 'deny', index: false });
     let found = false;
     file.on('file', () => (found = true));
     // A folder of the client is no page: Astro answers (send would redirect to its index).

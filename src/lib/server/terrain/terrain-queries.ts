@@ -96,13 +96,16 @@ async function delineateAt(propertyId: number, lonLat: [number, number], snapM: 
  * Catchments without outline, by terrain run and outlet cell. Walking every upslope cell was most
  * of a fence edit's design work, and an edit that moves a crossing a few metres almost always
  * snaps to the same outlet: the same catchment. A run's rasters never change, so nothing goes stale.
+ * Kept without the flow path's vertices (catchmentFiguresAt reads only the figures).
  */
 const figuresByOutlet = new Map<string, Catchment | null>();
 const KEPT_FIGURES = 5_000;
 
 function keptFigures(key: string, delineate: () => Catchment | null): Catchment | null {
   if (figuresByOutlet.has(key)) return figuresByOutlet.get(key)!;
-  const catchment = delineate();
+  const traced = delineate();
+  // Only the figures are kept: the flow path's vertices (hundreds of points) are not read from here.
+  const catchment = traced && { ...traced, longestFlowPath: [], polygon: [] };
   figuresByOutlet.set(key, catchment);
   if (figuresByOutlet.size > KEPT_FIGURES) figuresByOutlet.delete(figuresByOutlet.keys().next().value!);
   return catchment;
