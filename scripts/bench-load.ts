@@ -21,7 +21,7 @@
  * under 10 %); its verdicts are errors and memory. The per-person limit on heavy requests is
  * raised for the benchmark: the mix exports far more often than a person would.
  */
-import { execFileSync, spawn, type ChildProcess } from 'node:child_process';
+import { execFileSync, type ChildProcess } from 'node:child_process';
 import { existsSync, mkdtempSync, readFileSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import path from 'node:path';
@@ -30,9 +30,8 @@ import autocannon from 'autocannon';
 import Database from 'better-sqlite3';
 import { createMulberry32 } from '../data-samples/lib/prng';
 import { DEMO_ACCOUNTS, DEMO_PASSWORD } from './demo-accounts';
-import { freePort } from './local-process';
+import { BUILT_SERVER, spawnBuiltServer } from './local-process';
 
-const ENTRY = 'dist/server/serve.mjs';
 const AUTH_SECRET = 'bench-secret-that-is-long-enough-for-authjs-0123456789';
 const REQUEST_TIMEOUT_S = 10;
 
@@ -52,42 +51,13 @@ const terrainPhaseS = option('terrain-duration', 20);
 const warmUpS = option('warm-up', 5);
 
 async function startServer(dataDir: string): Promise<{ server: ChildProcess; baseUrl: string }> {
-  const port = await freePort();
-  const baseUrl = `http://127.0.0.1:${port}`;
   // BENCH_PROFILE_DIR=folder writes a CPU profile of the server there (open it in Chrome's DevTools).
-  const profile = process.env.BENCH_PROFILE_DIR
+  const nodeArgs = process.env.BENCH_PROFILE_DIR
     ? ['--cpu-prof', `--cpu-prof-dir=${path.resolve(process.env.BENCH_PROFILE_DIR)}`, '--import', 'data:text/javascript,process.on("SIGTERM",()=>process.exit(0))']
     : [];
-  const server = spawn(process.execPath, [...profile, ENTRY], {
-    env: {
-      ...process.env,
-      NODE_ENV: 'production',
-      HOST: '127.0.0.1',
-      PORT: String(port),
-      DATA_DIR: dataDir,
-      DATABASE_URL: '',
-      AUTH_SECRET,
-      EXPENSIVE_REQUESTS_PER_MINUTE: '1000000',
-    },
-    stdio: ['ignore', 'pipe', 'pipe'],
-  });
-  let output = '';
-  server.stdout?.on('data', (chunk: Buffer) => (output = (output + chunk.toString()).slice(-20_000)));
-  server.stderr?.on('data', (chunk: Buffer) => (output = (output + chunk.toString()).slice(-20_000)));
-  process.on('exit', () => server.kill());
-  const deadline = Date.now() + 30_000;
-  for (;;) {
-    try {
-      if ((await fetch(`${baseUrl}/api/health`)).ok) return { server, baseUrl };
-    } catch {
-      // not listening yet
-    }
-    if (server.exitCode !== null || Date.now() > deadline) {
-      server.kill();
-      throw new Error(`The built server did not start:\n${output}`);
-    }
-    await new Promise((resolve) => setTimeout(resolve, 200));
-  }
+  const started = await spawnBuiltServer({ dataDir, nodeArgs, env: { AUTH_SECRET, EXPENSIVE_REQUESTS_PER_MINUTE: '1000000' } });
+  process.on('exit', () => started.server.kill());
+  return started;
 }
 
 /** A signed-in person for the setup: its cookie jar, as the browser keeps it. */
@@ -595,7 +565,7 @@ async function settle(world: World): Promise<void> {
 }
 
 async function main(): Promise<void> {
-  if (!existsSync(ENTRY)) throw new Error(`${ENTRY} is missing: run "npm run build" first (bench:load measures the built app).`);
+  if (!existsSync(BUILT_SERVER)) throw new Error(`${BUILT_SERVER} is missing: run "npm run build" first (bench:load measures the built app).`);
   const dataDir = mkdtempSync(path.join(tmpdir(), 'gullyline-bench-load-'));
   let server: ChildProcess | undefined;
   try {

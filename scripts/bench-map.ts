@@ -17,17 +17,16 @@
  * core: the load average and the CPU time the server and the browser used during each load are
  * printed beside the wall time.
  */
-import { spawn, type ChildProcess } from 'node:child_process';
+import type { ChildProcess } from 'node:child_process';
 import { existsSync, mkdtempSync, readdirSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { availableParallelism, loadavg, tmpdir } from 'node:os';
 import path from 'node:path';
 import { brotliCompressSync, constants as zlibConstants, gzipSync } from 'node:zlib';
 import { chromium, type Browser, type BrowserContext, type Page } from 'playwright-core';
 import { BENCH_PROPERTY, seedBenchProperty } from './bench-map-property';
-import { freePort, CHROMIUM_ARGS } from './local-process';
+import { BUILT_SERVER, CHROMIUM_ARGS, spawnBuiltServer } from './local-process';
 
 const seed = Number(process.argv[2] ?? 20261202);
-const ENTRY = 'dist/server/serve.mjs';
 const RUNS = 3;
 const KB = 1000;
 const TARGETS = { firstIdleMs: 3000, landingJsBytes: 20 * KB, workspaceOwnJsBytes: 300 * KB };
@@ -139,29 +138,8 @@ function cpuSplit(serverPid: number): { serverS: number; browserS: number } {
 }
 
 
-async function startServer(dataDir: string): Promise<{ server: ChildProcess; baseUrl: string; output: () => string }> {
-  const port = await freePort();
-  const baseUrl = `http://127.0.0.1:${port}`;
-  const server = spawn(process.execPath, [ENTRY], {
-    env: { ...process.env, NODE_ENV: 'production', HOST: '127.0.0.1', PORT: String(port), DATA_DIR: dataDir, DATABASE_URL: '', AUTH_SECRET },
-    stdio: ['ignore', 'pipe', 'pipe'],
-  });
-  let output = '';
-  server.stdout?.on('data', (chunk: Buffer) => (output += chunk.toString()));
-  server.stderr?.on('data', (chunk: Buffer) => (output += chunk.toString()));
-  const deadline = Date.now() + 30_000;
-  for (;;) {
-    try {
-      if ((await fetch(`${baseUrl}/api/health`)).ok) return { server, baseUrl, output: () => output };
-    } catch {
-      // not listening yet
-    }
-    if (server.exitCode !== null || Date.now() > deadline) {
-      server.kill();
-      throw new Error(`The built server did not start:\n${output}`);
-    }
-    await new Promise((resolve) => setTimeout(resolve, 200));
-  }
+function startServer(dataDir: string): Promise<{ server: ChildProcess; baseUrl: string; output: () => string }> {
+  return spawnBuiltServer({ dataDir, env: { AUTH_SECRET } });
 }
 
 /** A new tab with the HTTP cache off, so every load downloads everything, as a first visit does. */
@@ -382,8 +360,8 @@ const sum = (scripts: ShippedScript[], key: 'rawBytes' | 'gzipBytes' | 'brotliBy
 const totals = (scripts: ShippedScript[]): string => `${kb(sum(scripts, 'gzipBytes'))} gzip, ${kb(sum(scripts, 'brotliBytes'))} brotli, ${kb(sum(scripts, 'rawBytes'))} raw`;
 
 async function main(): Promise<void> {
-  if (!existsSync(ENTRY)) {
-    console.error(`${ENTRY} is missing: run "npm run build" first (bench:map measures the built app).`);
+  if (!existsSync(BUILT_SERVER)) {
+    console.error(`${BUILT_SERVER} is missing: run "npm run build" first (bench:map measures the built app).`);
     process.exitCode = 1;
     return;
   }

@@ -6,8 +6,8 @@ import { existsSync } from 'node:fs';
 import { getConfig } from '../src/lib/server/config';
 import { startMailCatcher } from '../src/lib/server/mail-catcher';
 import { DEMO_ACCOUNTS, DEMO_PASSWORD } from './demo-accounts';
+import { BUILT_SERVER } from './local-process';
 
-const ENTRY = 'dist/server/serve.mjs';
 
 async function run(command: string, args: string[]): Promise<void> {
   await new Promise<void>((resolve, reject) => {
@@ -30,7 +30,7 @@ async function waitForHealth(url: string, timeoutMs: number): Promise<void> {
 }
 
 async function main(): Promise<void> {
-  if (!existsSync(ENTRY)) throw new Error(`${ENTRY} is missing: run "npm run build" first.`);
+  if (!existsSync(BUILT_SERVER)) throw new Error(`${BUILT_SERVER} is missing: run "npm run build" first.`);
   const config = getConfig();
   await run(process.execPath, ['--import', 'tsx', 'scripts/db.ts', process.argv.includes('--demo') ? 'seed' : 'migrate']);
   const env: NodeJS.ProcessEnv = { ...process.env, HOST: process.env.HOST ?? '127.0.0.1', PORT: process.env.PORT ?? '4321' };
@@ -39,7 +39,7 @@ async function main(): Promise<void> {
     env.SMTP_URL = catcher.url;
     console.log(`Local e-mail catcher on ${catcher.url}: messages are kept in ${catcher.folder}`);
   }
-  const server = spawn(process.execPath, [ENTRY], { stdio: 'inherit', env });
+  const server = spawn(process.execPath, [BUILT_SERVER], { stdio: 'inherit', env });
   for (const signal of ['SIGINT', 'SIGTERM'] as const) process.on(signal, () => server.kill(signal));
   server.on('exit', (code) => process.exit(code ?? 0));
   const url = config.publicUrl ?? `http://${env.HOST === '0.0.0.0' ? 'localhost' : env.HOST}:${env.PORT}`;

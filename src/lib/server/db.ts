@@ -76,10 +76,13 @@ export function insertRow(connection: RawConnection, table: string, row: Record<
   return connection.prepare(`insert into "${table}" (${columns.map((c) => `"${c}"`).join(', ')}) values (${columns.map(() => '?').join(', ')})`).run(...columns.map((c) => sqlValue(row[c])));
 }
 
-/** `update table set … where id = ?` for the row's defined columns. */
-export function updateRowById(connection: RawConnection, table: string, id: number, row: Record<string, unknown>): BetterSqlite3.RunResult {
+/** `update table set … where … = ? and …` for the row's defined columns; `changes` says how many rows matched. */
+export function updateRows(connection: RawConnection, table: string, row: Record<string, unknown>, where: Record<string, unknown>): BetterSqlite3.RunResult {
   const columns = Object.keys(row).filter((column) => row[column] !== undefined);
-  return connection.prepare(`update "${table}" set ${columns.map((c) => `"${c}" = ?`).join(', ')} where "id" = ?`).run(...columns.map((c) => sqlValue(row[c])), id);
+  const conditions = Object.keys(where);
+  return connection
+    .prepare(`update "${table}" set ${columns.map((c) => `"${c}" = ?`).join(', ')} where ${conditions.map((c) => `"${c}" = ?`).join(' and ')}`)
+    .run(...columns.map((c) => sqlValue(row[c])), ...conditions.map((c) => sqlValue(where[c])));
 }
 
 let migrated: Promise<void> | undefined;

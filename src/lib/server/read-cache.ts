@@ -51,12 +51,15 @@ function recall(key: string, stamp: number | string): Entry | undefined {
  * The value is shared between requests: callers must not change it.
  */
 export async function keptValue<T>(key: string, propertyId: number, which: ReadGeneration, compute: () => Promise<T>, sizeOf: (value: T) => number = () => 1024): Promise<T> {
-  const stamp = await readGeneration(propertyId, which);
-  const fullKey = `${key}:${propertyId}`;
-  const kept = recall(fullKey, stamp);
+  return keptAt(`${key}:${propertyId}`, await readGeneration(propertyId, which), compute, sizeOf);
+}
+
+/** `compute()`'s value kept under `key` while the stamp stays the one given. */
+async function keptAt<T>(key: string, stamp: number | string, compute: () => Promise<T>, sizeOf: (value: T) => number): Promise<T> {
+  const kept = recall(key, stamp);
   if (kept) return kept.value as T;
   const value = await compute();
-  remember(fullKey, { stamp, value, bytes: sizeOf(value) });
+  remember(key, { stamp, value, bytes: sizeOf(value) });
   return value;
 }
 
@@ -76,12 +79,7 @@ export async function keptJsonAnswer(request: Request, key: string, propertyId: 
  * before computing, for the same reason as there.
  */
 export async function keptJsonAnswerAt(request: Request, key: string, stamp: string, contentType: string, compute: () => Promise<unknown>): Promise<Response> {
-  const fullKey = `json:${key}`;
-  let kept = recall(fullKey, stamp)?.value as KeptJson | undefined;
-  if (!kept) {
-    kept = keptJsonOf(await compute());
-    remember(fullKey, { stamp, value: kept, bytes: keptJsonBytes(kept) });
-  }
+  const kept = await keptAt(`json:${key}`, stamp, async () => keptJsonOf(await compute()), keptJsonBytes);
   return answerWith(request, kept, contentType);
 }
 

@@ -1,4 +1,4 @@
-import { insertRow, updateRowById, writeAtOnce } from '../db';
+import { insertRow, updateRows, writeAtOnce } from '../db';
 import { computeInWorker } from '../jobs/analysis-jobs';
 import { matchingCrossing, type ComputedCrossings } from './compute-crossing-rows';
 
@@ -53,7 +53,7 @@ function store({ rows, designed, old }: ComputedCrossings): Promise<{ crossings:
       const match = matchOf(row.fence_line_id as number, row.drainage_line_id as number, row.chainage_m as number);
       if (match && !kept.has(match.id)) {
         kept.add(match.id);
-        updateRowById(connection, 'crossings', match.id, row);
+        updateRows(connection, 'crossings', row, { id: match.id });
       } else {
         insertRow(connection, 'crossings', row);
       }

@@ -3,7 +3,7 @@ import { boundsOf, lineLengthM } from '../../geo/measure';
 import { fenceLineSchemas, wireSpecSchema, type FenceLine, type FenceLineInput, type FenceStatus } from '../../schemas/plan';
 import { checkFenceLine, cleanFenceLine } from '../../crossings/geometry/fence-checks';
 import { getConfig } from '../config';
-import { db, insertRow, sqlValue, writeAtOnce } from '../db';
+import { db, insertRow, updateRows, writeAtOnce } from '../db';
 import { ConflictError, NotFoundError, ValidationError } from '../http';
 import { auditRow, recordAudit } from './audit-log';
 
@@ -142,11 +142,7 @@ export async function updateFenceLine(
       version: changes.version + 1,
       updated_at: new Date().toISOString(),
     };
-    const columns = Object.keys(row) as (keyof typeof row)[];
-    const result = connection
-      .prepare(`update "fence_lines" set ${columns.map((c) => `"${c}" = ?`).join(', ')} where "id" = ? and "property_id" = ? and "version" = ?`)
-      .run(...columns.map((c) => sqlValue(row[c])), id, propertyId, changes.version);
-    if (result.changes === 0) return false;
+    if (updateRows(connection, 'fence_lines', row, { id, property_id: propertyId, version: changes.version }).changes === 0) return false;
     insertRow(connection, 'audit_log', auditRow({ propertyId, userId, action: 'fence_line.update', entityType: 'fence_line', entityId: id, detail: { fields: Object.keys(changed) } }));
     return true;
   });
